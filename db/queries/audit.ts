@@ -1,0 +1,24 @@
+import { auditEvents } from "@/db/schema";
+import type { DbOrTx } from "@/db/client";
+
+export interface AuditInput {
+  actorUserId: number | null;
+  action: string;
+  entityType: string;
+  entityId: string | number;
+  scannerId?: number | null;
+  details?: Record<string, unknown>;
+}
+
+/** Append one audit event; call inside the same transaction as the change it records. */
+export async function insertAuditEvent(tx: DbOrTx, input: AuditInput): Promise<void> {
+  await tx.insert(auditEvents).values({
+    at: new Date(),
+    actorUserId: input.actorUserId,
+    action: input.action,
+    entityType: input.entityType,
+    entityId: String(input.entityId),
+    scannerId: input.scannerId ?? null,
+    details: input.details ?? {},
+  });
+}

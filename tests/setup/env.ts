@@ -1,2 +1,10 @@
-// Test-only environment defaults. The test database is separate from the dev one (see scripts/lib/config.mjs).
-process.env.HALFMAX_ENV ??= "test";
+// Vitest runs against the test environment (separate database, port and data dir from `npm start`).
+// `npm test` passes the environment; this fills it in when vitest is run directly.
+// @ts-expect-error plain ESM helper without types
+import { resolveConfig } from "../../scripts/lib/config.mjs";
+
+const cfg = resolveConfig("test") as { runtimeEnv: Record<string, string> };
+for (const [key, value] of Object.entries(cfg.runtimeEnv)) {
+  if (key === "NODE_ENV") continue;
+  if (process.env[key] === undefined || key === "HALFMAX_ENV") process.env[key] = value;
+}

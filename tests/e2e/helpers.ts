@@ -1,0 +1,11 @@
+import { expect, type Page } from "@playwright/test";
+
+export const DEMO_PASSWORD = process.env.DEMO_PASSWORD ?? "halfmax-demo";
+
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto("/login");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByTestId("current-user")).toBeVisible();
+}

@@ -64,6 +64,13 @@ export function decodeJpegLosslessFrames(
     } catch (e) {
       throw new ImageDecodeError("malformed", `JPEG Lossless frame ${f + 1} of ${frames} could not be decoded (${e instanceof Error ? e.message : String(e)}); the file may be corrupt or truncated`);
     }
+    // The decoder reads past the end of a cut stream without complaint (it sees zeros); catch that here.
+    if (decoder.stream && decoder.stream.index > decoder.stream.buffer.length) {
+      throw new ImageDecodeError(
+        "truncated",
+        `JPEG Lossless frame ${f + 1} of ${frames} ends before all its pixels are coded (${compressed.length} bytes); the file is truncated or corrupt`,
+      );
+    }
     const components = decoder.numComp ?? 1;
     if (components !== 1) {
       throw new ImageDecodeError(

@@ -56,6 +56,11 @@ function parse(bytes: Uint8Array, layout: DicomLayout): Parsed {
       if (isTruncation(message)) throw new ImageDecodeError("truncated", `the DICOM file ends inside its File Meta Information (${input.length} bytes); upload the complete file`);
       throw new ImageDecodeError("malformed", `the DICOM File Meta Information cannot be read: ${message}`);
     }
+    const lengthElement = meta.elements.x00020000;
+    const groupLength = lengthElement && lengthElement.dataOffset + 4 <= input.length ? meta.uint32("x00020000") : undefined;
+    if (lengthElement && (groupLength === undefined || 132 + 12 + groupLength > input.length)) {
+      throw new ImageDecodeError("truncated", `the DICOM file ends inside its File Meta Information (${input.length} bytes); upload the complete file`);
+    }
     const uid = meta.string("x00020010");
     if (!uid) throw new ImageDecodeError("malformed", "the DICOM File Meta Information has no Transfer Syntax UID (0002,0010)");
     transferSyntaxUid = uid.replace(/\0/g, "").trim();
@@ -144,6 +149,18 @@ function checkNativeLength(element: Element, bytesAvailable: number, module: Ima
  *   too_many_pixels, unsupported_transfer_syntax, unsupported_pixel_format. Never throws anything else for bad input.
  */
 export function decodeDicom(bytes: Uint8Array, options: DicomDecodeOptions = {}): DecodedImage {
+  try {
+    return decodeDicomUnchecked(bytes, options);
+  } catch (e) {
+    if (e instanceof ImageDecodeError) throw e;
+    // Safety net: dicom-parser and the JPEG decoder throw strings or plain errors on inputs not foreseen above.
+    const message = describe(e);
+    if (isTruncation(message)) throw new ImageDecodeError("truncated", `the DICOM file is truncated (${message}); upload the complete file`);
+    throw new ImageDecodeError("malformed", `the DICOM file cannot be read: ${message}`);
+  }
+}
+
+function decodeDicomUnchecked(bytes: Uint8Array, options: DicomDecodeOptions): DecodedImage {
   const layout = sniffDicomLayout(bytes);
   if (!layout) {
     throw new ImageDecodeError("not_an_image", "not a DICOM file: no \"DICM\" marker at byte 128 and no recognisable DICOM data set at the start");

@@ -7,6 +7,8 @@ declare module "jpeg-lossless-decoder-js" {
     /** Decodes one JPEG Lossless image; numBytes = bytes per output sample (1 → Uint8Array, 2 → Uint16Array). */
     decode(buffer?: ArrayBuffer, offset?: number, length?: number, numBytes?: number): Uint8Array | Uint16Array;
     numComp: number;
+    /** Input position after decode(); index > buffer.length means it read past the end. */
+    stream: { index: number; buffer: Uint8Array } | null;
     frame: { dimX: number; dimY: number; precision: number; numComp: number };
   }
 }

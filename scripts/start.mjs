@@ -18,7 +18,8 @@ async function main() {
     children.push(startChild(process.execPath, [TSX_CLI, "scripts/smtp-sink.ts"], { cwd: ROOT, env: { ...env, SMTP_SINK_PORT: String(cfg.smtpPort) } }));
   }
   if (process.env.HALFMAX_SKIP_BUILD !== "1") {
-    log("building the app (next build)");
+    log("building the analysis worker and the app (next build)");
+    await (await import("./build-worker.mjs")).buildWorker(); // dynamic: esbuild exists only after npm ci
     run(bin("next"), ["build"], { cwd: ROOT, env });
   }
   log(`serving on http://localhost:${cfg.appPort}`);

@@ -34,6 +34,7 @@ async function main() {
   };
   try {
     await freshDatabase(cfg, env);
+    await (await import("./build-worker.mjs")).buildWorker(); // dynamic: esbuild exists only after npm ci
     if (wants("types")) step("type-check (tsc)", () => run(bin("tsc"), ["--noEmit", "-p", "."], { cwd: ROOT, env }));
     if (wants("unit")) step("unit and integration tests (vitest)", () => run(bin("vitest"), ["run"], { cwd: ROOT, env }));
     if (wants("e2e")) {

@@ -30,7 +30,7 @@ export interface CardHeaderProps extends Omit<ComponentPropsWithoutRef<"div">, "
 /** Title row of a card; put CardTitle (and CardDescription) inside. */
 export function CardHeader({ actions, className, children, ...rest }: CardHeaderProps) {
   return (
-    <div {...rest} className={cn("flex flex-wrap items-start justify-between gap-x-4 gap-y-2 border-b border-line px-5 py-3.5", className)}>
+    <div {...rest} className={cn("flex flex-wrap items-start justify-between gap-x-4 gap-y-2 border-b border-line px-4 py-3", className)}>
       <div className="flex min-w-0 flex-col gap-0.5">{children}</div>
       {actions ? <div className="flex shrink-0 items-center gap-2">{actions}</div> : null}
     </div>
@@ -56,14 +56,14 @@ export interface CardBodyProps extends ComponentPropsWithoutRef<"div"> {
 }
 
 export function CardBody({ flush = false, className, ...rest }: CardBodyProps) {
-  return <div {...rest} className={cn("min-w-0 flex-1", flush ? "" : "px-5 py-4", className)} />;
+  return <div {...rest} className={cn("min-w-0 flex-1", flush ? "" : "p-4", className)} />;
 }
 
 export function CardFooter({ className, ...rest }: ComponentPropsWithoutRef<"div">) {
   return (
     <div
       {...rest}
-      className={cn("flex flex-wrap items-center justify-end gap-2 rounded-b-card border-t border-line bg-surface-canvas px-5 py-3", className)}
+      className={cn("flex flex-wrap items-center justify-end gap-2 rounded-b-card border-t border-line bg-surface-canvas px-4 py-3", className)}
     />
   );
 }

@@ -26,12 +26,13 @@ import { Table, TBody, Td, Th, THead, Tr } from "./table-shell";
 
 declare module "@tanstack/react-table" {
   // Halfmax column options, set per column as `meta: { numeric: true }`.
-  // eslint-disable-next-line @typescript-eslint/no-unused-vars
   interface ColumnMeta<TData extends RowData, TValue> {
     /** Right-align header and cells, tabular figures. */
     numeric?: boolean;
     /** Secondary text colour for the cells. */
     muted?: boolean;
+    /** Let long cell text wrap (default: one line, the table scrolls sideways). */
+    wrap?: boolean;
     headerClassName?: string;
     cellClassName?: string;
   }
@@ -43,7 +44,6 @@ export interface DataTableProps<T> {
   data: T[];
   /** TanStack column definitions (`createColumnHelper<T>()` helps). Set `meta.numeric` for measurement columns. */
   // `any`: TanStack's own advice for arrays of columns whose values differ in type.
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   columns: ColumnDef<T, any>[];
   /** Accessible name of the table (its `<caption>`), e.g. "Scans of CT-2". */
   caption: string;
@@ -144,6 +144,8 @@ export function DataTable<T>({
   const firstShown = filteredCount === 0 ? 0 : pageIndex * pageSize + 1;
   const lastShown = Math.min(filteredCount, (pageIndex + 1) * pageSize);
   const filtering = globalFilter.trim() !== "";
+  const showPager = pageCount > 1;
+  const showPageSize = data.length > Math.min(...pageSizeOptions, pageSize);
   const sizes = pageSizeOptions.includes(pageSize) ? pageSizeOptions : [...pageSizeOptions, pageSize].sort((a, b) => a - b);
 
   const rowHandlers = (row: Row<T>) => {
@@ -193,7 +195,7 @@ export function DataTable<T>({
   } else if (data.length === 0 || filteredCount === 0) {
     body = (
       <Tr>
-        <Td colSpan={Math.max(1, leafColumns.length)} className="p-0">
+        <Td colSpan={Math.max(1, leafColumns.length)} wrap className="p-0">
           {data.length === 0 ? (
             (empty ?? <EmptyState size="compact" titleAs="p" title={emptyTitle} description={emptyDescription} />)
           ) : (
@@ -222,7 +224,7 @@ export function DataTable<T>({
             const meta = cell.column.columnDef.meta;
             const content = flexRender(cell.column.columnDef.cell, cell.getContext());
             return (
-              <Td key={cell.id} numeric={meta?.numeric} muted={meta?.muted} className={meta?.cellClassName}>
+              <Td key={cell.id} numeric={meta?.numeric} muted={meta?.muted} wrap={meta?.wrap} className={meta?.cellClassName}>
                 {href && cell.column.id === linkColumn ? (
                   <Link href={href} className="font-medium text-ink underline-offset-2 hover:text-accent hover:underline">
                     {content}
@@ -302,31 +304,37 @@ export function DataTable<T>({
               : `Showing ${firstShown}–${lastShown} of ${filteredCount}${filtering ? ` matching (${data.length} in all)` : ""}`}
         </p>
         <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
-          <div className="flex items-center gap-2">
-            <label htmlFor={pageSizeId}>Rows per page</label>
-            <Select
-              id={pageSizeId}
-              controlSize="sm"
-              className="w-20"
-              value={String(pageSize)}
-              onChange={(event) => table.setPageSize(Number(event.target.value))}
-            >
-              {sizes.map((size) => (
-                <option key={size} value={size}>
-                  {size}
-                </option>
-              ))}
-            </Select>
-          </div>
-          <p className="tnum">
-            Page {Math.min(pageIndex + 1, pageCount)} of {pageCount}
-          </p>
-          <nav aria-label={`Pages of ${caption}`} className="flex items-center gap-1">
-            <PagerButton label="First page" disabled={!table.getCanPreviousPage()} onClick={() => table.firstPage()} d="M10.5 4 6.5 8l4 4M4.5 4v8" />
-            <PagerButton label="Previous page" disabled={!table.getCanPreviousPage()} onClick={() => table.previousPage()} d="M10 4 6 8l4 4" />
-            <PagerButton label="Next page" disabled={!table.getCanNextPage()} onClick={() => table.nextPage()} d="M6 4l4 4-4 4" />
-            <PagerButton label="Last page" disabled={!table.getCanNextPage()} onClick={() => table.lastPage()} d="M5.5 4l4 4-4 4M11.5 4v8" />
-          </nav>
+          {showPageSize ? (
+            <div className="flex items-center gap-2">
+              <label htmlFor={pageSizeId}>Rows per page</label>
+              <Select
+                id={pageSizeId}
+                controlSize="sm"
+                className="w-20"
+                value={String(pageSize)}
+                onChange={(event) => table.setPageSize(Number(event.target.value))}
+              >
+                {sizes.map((size) => (
+                  <option key={size} value={size}>
+                    {size}
+                  </option>
+                ))}
+              </Select>
+            </div>
+          ) : null}
+          {showPager ? (
+            <>
+              <p className="tnum">
+                Page {Math.min(pageIndex + 1, pageCount)} of {pageCount}
+              </p>
+              <nav aria-label={`Pages of ${caption}`} className="flex items-center gap-1">
+                <PagerButton label="First page" disabled={!table.getCanPreviousPage()} onClick={() => table.firstPage()} d="M10.5 4 6.5 8l4 4M4.5 4v8" />
+                <PagerButton label="Previous page" disabled={!table.getCanPreviousPage()} onClick={() => table.previousPage()} d="M10 4 6 8l4 4" />
+                <PagerButton label="Next page" disabled={!table.getCanNextPage()} onClick={() => table.nextPage()} d="M6 4l4 4-4 4" />
+                <PagerButton label="Last page" disabled={!table.getCanNextPage()} onClick={() => table.lastPage()} d="M5.5 4l4 4-4 4M11.5 4v8" />
+              </nav>
+            </>
+          ) : null}
         </div>
       </div>
     </div>

@@ -21,12 +21,12 @@ export interface EmptyStateProps {
 export function EmptyState({ title, description, icon, action, titleAs: Title = "h3", size = "default", className }: EmptyStateProps) {
   return (
     <div className={cn("flex flex-col items-center text-center", size === "compact" ? "gap-1.5 px-4 py-8" : "gap-2 px-6 py-12", className)}>
-      <span className="mb-1 inline-flex size-10 items-center justify-center rounded-full border border-line bg-surface-canvas text-ink-subtle" aria-hidden="true">
+      <span className="mb-1 inline-flex size-12 items-center justify-center rounded-full border border-line bg-surface-canvas text-ink-subtle" aria-hidden="true">
         {icon ?? (
-          <svg viewBox="0 0 24 24" className="size-5" focusable="false">
-            {/* a flat line-spread profile: nothing measured yet */}
-            <path d="M3 17h18" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" />
-            <path d="M5 17c3 0 4-9 7-9s4 9 7 9" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" strokeDasharray="2 2.4" />
+          <svg viewBox="0 0 24 24" className="size-7" focusable="false">
+            {/* empty axes with a dashed spread profile: nothing measured yet */}
+            <path d="M4 3.5v16h16.5" fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" strokeLinejoin="round" />
+            <path d="M6.5 17.5c2.6 0 3.4-10.5 6.5-10.5s3.9 10.5 6.5 10.5" fill="none" stroke="currentColor" strokeWidth="1.5" strokeLinecap="round" strokeDasharray="0.1 2.6" />
           </svg>
         )}
       </span>

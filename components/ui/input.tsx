@@ -9,7 +9,7 @@ export type ControlSize = "sm" | "md";
  */
 export function controlClasses({ controlSize = "md", className }: { controlSize?: ControlSize; className?: string } = {}) {
   return cn(
-    "block w-full min-w-0 rounded-control border border-line-control bg-surface text-ink shadow-inset tnum",
+    "block w-full min-w-0 rounded-control border border-line-control bg-surface text-ink shadow-inset",
     "placeholder:text-ink-subtle",
     "transition-[border-color] duration-150 hover:border-ink-subtle",
     "disabled:cursor-not-allowed disabled:border-line-strong disabled:bg-surface-sunken disabled:text-ink-subtle",
@@ -33,9 +33,11 @@ export interface InputProps extends ComponentPropsWithRef<"input"> {
  * With `suffix`, the border moves to a wrapper so the unit sits inside the field.
  */
 export function Input({ invalid, controlSize = "md", suffix, className, type = "text", ...rest }: InputProps) {
+  // Tabular figures only for numeric entry: Inter's tnum also widens hyphens and colons in text.
+  const numeric = type === "number" || rest.inputMode === "decimal" || rest.inputMode === "numeric";
   const ariaInvalid = invalid || rest["aria-invalid"] === true || rest["aria-invalid"] === "true" || undefined;
   if (suffix === undefined || suffix === null) {
-    return <input type={type} {...rest} aria-invalid={ariaInvalid} className={controlClasses({ controlSize, className })} />;
+    return <input type={type} {...rest} aria-invalid={ariaInvalid} className={controlClasses({ controlSize, className: cn(numeric && "tnum", className) })} />;
   }
   return (
     <span
@@ -50,7 +52,10 @@ export function Input({ invalid, controlSize = "md", suffix, className, type = "
         type={type}
         {...rest}
         aria-invalid={ariaInvalid}
-        className="h-full min-w-0 flex-1 bg-transparent text-inherit outline-none placeholder:text-ink-subtle focus-visible:outline-none disabled:cursor-not-allowed"
+        className={cn(
+          "h-full min-w-0 flex-1 bg-transparent text-inherit outline-none placeholder:text-ink-subtle focus-visible:outline-none disabled:cursor-not-allowed",
+          numeric && "tnum",
+        )}
       />
       <span aria-hidden="true" className="shrink-0 text-caption text-ink-subtle">
         {suffix}

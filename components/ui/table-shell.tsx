@@ -100,7 +100,7 @@ export function Th({ sort, onSort, numeric = false, scope = "col", className, ch
       aria-sort={ariaSort}
       className={cn(
         "border-b border-line-strong px-4 text-caption font-semibold whitespace-nowrap text-ink-muted",
-        "h-9 group-data-[density=compact]/table:h-8 group-data-[density=compact]/table:px-3",
+        "h-9 group-data-[density=compact]/table:h-8",
         numeric ? "text-right" : "text-left",
         className,
       )}
@@ -129,15 +129,18 @@ export interface TdProps extends ComponentPropsWithoutRef<"td"> {
   numeric?: boolean;
   /** Secondary text colour (e.g. dates, ids). */
   muted?: boolean;
+  /** Let long text (notes, descriptions) wrap; by default cells stay on one line and the table scrolls sideways. */
+  wrap?: boolean;
 }
 
-export function Td({ numeric = false, muted = false, className, ...rest }: TdProps) {
+export function Td({ numeric = false, muted = false, wrap = false, className, ...rest }: TdProps) {
   return (
     <td
       {...rest}
       className={cn(
-        "px-4 py-2.5 group-data-[density=compact]/table:px-3 group-data-[density=compact]/table:py-1.5",
-        numeric && "text-right tnum whitespace-nowrap",
+        "px-4 py-2.5 group-data-[density=compact]/table:py-1.5",
+        numeric && "text-right tnum",
+        wrap ? "min-w-48" : "whitespace-nowrap",
         muted ? "text-ink-muted" : "text-ink",
         className,
       )}

@@ -23,7 +23,7 @@ const tabId = (baseId: string, value: string) => `${baseId}-tab-${safe(value)}`;
 const panelId = (baseId: string, value: string) => `${baseId}-panel-${safe(value)}`;
 
 export interface TabsProps {
-  /** Initially selected tab (uncontrolled). */
+  /** Initially selected tab (uncontrolled). Give this or `value`: with neither, no tab is reachable by keyboard. */
   defaultValue?: string;
   /** Selected tab (controlled); pair with onValueChange. */
   value?: string;

@@ -115,10 +115,40 @@ function collectBorder(image: GrayImage, roi: Roi, b: number, sides: BorderSides
   return out.subarray(0, count);
 }
 
-/** Median of `values`; sorts the array in place. */
+/** Median of `values` by quickselect (Hoare, CACM 1961), O(n); reorders the array in place. */
 function medianInPlace(values: Float64Array): number {
-  values.sort();
   const n = values.length;
   const mid = n >> 1;
-  return n % 2 === 1 ? values[mid]! : 0.5 * (values[mid - 1]! + values[mid]!);
+  const upper = selectInPlace(values, mid);
+  if (n % 2 === 1) return upper;
+  // After selection every value left of `mid` is ≤ values[mid]: the lower middle is their maximum.
+  let lower = -Infinity;
+  for (let i = 0; i < mid; i++) if (values[i]! > lower) lower = values[i]!;
+  return 0.5 * (lower + upper);
+}
+
+/** k-th smallest value (0-based); partially orders the array in place. */
+function selectInPlace(values: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = values.length - 1;
+  while (lo < hi) {
+    const pivot = values[(lo + hi) >> 1]!;
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (values[i]! < pivot) i++;
+      while (values[j]! > pivot) j--;
+      if (i <= j) {
+        const t = values[i]!;
+        values[i] = values[j]!;
+        values[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else break;
+  }
+  return values[k]!;
 }

@@ -93,35 +93,32 @@ export function locatePointSource(
   return { centreXPx: centreX, centreYPx: centreY, peakPixelX, peakPixelY, peakValue, background, roughFwhmXPx, roughFwhmYPx };
 }
 
-/** Pixel with the largest 3×3 box sum inside the ROI (the box is clipped at the ROI edge and averaged). */
+/**
+ * Pixel with the largest 3×3 box mean inside the ROI (the box is clipped at the ROI edge). One pass with a single
+ * row buffer of vertical 3-sums, so a 512×512 frame costs no large allocation.
+ */
 function argmaxOfBoxMean(image: GrayImage, roi: Roi): { x: number; y: number } {
   const { width: w, height: h } = roi;
-  const rowSums = new Float64Array(w * h);
-  for (let row = 0; row < h; row++) {
-    const offset = (roi.y + row) * image.width + roi.x;
-    for (let col = 0; col < w; col++) {
-      let sum = image.data[offset + col]!;
-      if (col > 0) sum += image.data[offset + col - 1]!;
-      if (col < w - 1) sum += image.data[offset + col + 1]!;
-      rowSums[row * w + col] = sum / (1 + (col > 0 ? 1 : 0) + (col < w - 1 ? 1 : 0));
-    }
-  }
+  const data = image.data;
+  const columnSums = new Float64Array(w);
   let best = -Infinity;
   let bestX = roi.x;
   let bestY = roi.y;
   for (let row = 0; row < h; row++) {
+    const r0 = Math.max(0, row - 1);
+    const r1 = Math.min(h - 1, row + 1);
     for (let col = 0; col < w; col++) {
-      let sum = rowSums[row * w + col]!;
-      let count = 1;
-      if (row > 0) {
-        sum += rowSums[(row - 1) * w + col]!;
-        count++;
-      }
-      if (row < h - 1) {
-        sum += rowSums[(row + 1) * w + col]!;
-        count++;
-      }
-      const mean = sum / count;
+      let sum = 0;
+      for (let r = r0; r <= r1; r++) sum += data[(roi.y + r) * image.width + roi.x + col]!;
+      columnSums[col] = sum;
+    }
+    const rows = r1 - r0 + 1;
+    for (let col = 0; col < w; col++) {
+      const c0 = col > 0 ? col - 1 : col;
+      const c1 = col < w - 1 ? col + 1 : col;
+      let sum = columnSums[c0]! + columnSums[c1]!;
+      if (c1 - c0 === 2) sum += columnSums[col]!;
+      const mean = sum / (rows * (c1 - c0 + 1));
       if (mean > best) {
         best = mean;
         bestX = roi.x + col;

@@ -148,6 +148,7 @@ export const scans = mysqlTable(
   (t) => [
     uniqueIndex("scans_scanner_sha_uq").on(t.scannerId, t.fileSha256),
     index("scans_scanner_acquired_idx").on(t.scannerId, t.acquiredAt),
+    index("scans_test_acquired_idx").on(t.testId, t.acquiredAt),
   ],
 );
 

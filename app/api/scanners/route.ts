@@ -1,13 +1,17 @@
+import { getFleetStatus } from "@/db/queries/fleet";
 import { createScanner, listScannersForUser } from "@/db/queries/scanners";
 import { readJson, withUser } from "@/lib/api/handler";
 import { createScannerSchema } from "@/lib/validations/scanner";
 
 export const dynamic = "force-dynamic";
 
-// GET /api/scanners – the scanners the caller may see (engineers: assigned ones); ?includeInactive=1 adds retired ones
+// GET /api/scanners – the scanners the caller may see (engineers: assigned ones) with latest status, schedule state,
+// open alerts and an MTF50 sparkline; ?includeInactive=1 adds retired scanners
 export const GET = withUser("viewFleet", async ({ req, user }) => {
   const includeInactive = new URL(req.url).searchParams.get("includeInactive") === "1";
-  return Response.json({ scanners: await listScannersForUser(user, { includeInactive }) });
+  const scanners = await listScannersForUser(user, { includeInactive });
+  const status = await getFleetStatus(scanners.map((s) => s.id));
+  return Response.json({ scanners: scanners.map((s) => ({ ...s, status: status.get(s.id) ?? null })) });
 });
 
 // POST /api/scanners – create a scanner (admin)

@@ -1,0 +1,80 @@
+import { and, eq, gte, inArray, sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { alerts, analyses, metricValues, qaTests, scans } from "@/db/schema";
+import { dueState, type DueStateName, type Frequency, type Status } from "@/lib/qa";
+
+export interface TestStatus {
+  testId: number;
+  name: string;
+  method: string;
+  frequency: Frequency;
+  lastTestAt: Date | null;
+  lastScanId: number | null;
+  status: Status | null;
+  due: DueStateName;
+  dueAt: Date | null;
+  overdueByDays: number | null;
+}
+
+export interface ScannerStatus {
+  tests: TestStatus[];
+  lastTestAt: Date | null;
+  /** Worst latest status over the scanner's active tests ("no-baseline" when nothing is evaluated; null when never tested). */
+  latestStatus: Status | null;
+  openAlerts: number;
+  /** Worst schedule state over active tests. */
+  due: DueStateName;
+  /** MTF50 (cycles/mm) of the last results in the past year, oldest first, for a small trend line. */
+  sparkline: { at: Date; value: number }[];
+}
+
+const SEVERITY: Record<Status, number> = { "no-baseline": 0, pass: 1, warning: 2, action: 3 };
+const DUE_SEVERITY: Record<DueStateName, number> = { ok: 0, "never-tested": 1, due: 2, overdue: 3 };
+const SPARK_POINTS = 16;
+
+/** Latest status, schedule state, open alerts and a sparkline per scanner, in four set-based queries. */
+export async function getFleetStatus(scannerIds: number[], now = new Date()): Promise<Map<number, ScannerStatus>> {
+  const out = new Map<number, ScannerStatus>();
+  if (scannerIds.length === 0) return out;
+  for (const id of scannerIds) out.set(id, { tests: [], lastTestAt: null, latestStatus: null, openAlerts: 0, due: "ok", sparkline: [] });
+  const yearAgo = new Date(now.getTime() - 365 * 86_400_000);
+  const [tests, latest, alertCounts, spark] = await Promise.all([
+    db().select().from(qaTests).where(and(inArray(qaTests.scannerId, scannerIds), eq(qaTests.active, true))),
+    db()
+      .select({ testId: scans.testId, scanId: scans.id, at: scans.acquiredAt, status: analyses.status })
+      .from(scans)
+      .innerJoin(analyses, and(eq(analyses.scanId, scans.id), eq(analyses.isCurrent, true)))
+      .innerJoin(
+        sql`(select ${scans.testId} as t_id, max(${scans.acquiredAt}) as max_at from ${scans} where ${inArray(scans.scannerId, scannerIds)} group by ${scans.testId}) latest`,
+        sql`latest.t_id = ${scans.testId} and latest.max_at = ${scans.acquiredAt}`,
+      ),
+    db()
+      .select({ scannerId: alerts.scannerId, n: sql<number>`count(*)` })
+      .from(alerts)
+      .where(and(inArray(alerts.scannerId, scannerIds), inArray(alerts.state, ["open", "acknowledged"])))
+      .groupBy(alerts.scannerId),
+    db()
+      .select({ scannerId: metricValues.scannerId, at: metricValues.measuredAt, value: metricValues.value })
+      .from(metricValues)
+      .where(and(inArray(metricValues.scannerId, scannerIds), eq(metricValues.metric, "mtf50"), eq(metricValues.isCurrent, true), gte(metricValues.measuredAt, yearAgo)))
+      .orderBy(metricValues.scannerId, metricValues.measuredAt),
+  ]);
+  const latestByTest = new Map<number, (typeof latest)[number]>();
+  for (const l of latest) if (l.testId !== null) {
+    const prev = latestByTest.get(l.testId);
+    if (!prev || l.scanId > prev.scanId) latestByTest.set(l.testId, l);
+  }
+  for (const t of tests) {
+    const s = out.get(t.scannerId)!;
+    const l = latestByTest.get(t.id);
+    const d = dueState(l?.at ?? null, t.frequency, now);
+    s.tests.push({ testId: t.id, name: t.name, method: t.method, frequency: t.frequency, lastTestAt: l?.at ?? null, lastScanId: l?.scanId ?? null, status: l?.status ?? null, due: d.state, dueAt: d.dueAt, overdueByDays: d.overdueByDays });
+    if (l && (!s.lastTestAt || l.at > s.lastTestAt)) s.lastTestAt = l.at;
+    if (l && (s.latestStatus === null || SEVERITY[l.status] > SEVERITY[s.latestStatus])) s.latestStatus = l.status;
+    if (DUE_SEVERITY[d.state] > DUE_SEVERITY[s.due]) s.due = d.state;
+  }
+  for (const a of alertCounts) out.get(a.scannerId)!.openAlerts = Number(a.n);
+  for (const p of spark) if (p.value !== null) out.get(p.scannerId)!.sparkline.push({ at: p.at, value: p.value });
+  for (const s of out.values()) if (s.sparkline.length > SPARK_POINTS) s.sparkline = s.sparkline.slice(-SPARK_POINTS);
+  return out;
+}

@@ -1,0 +1,1 @@
+CREATE INDEX `scans_test_acquired_idx` ON `scans` (`test_id`,`acquired_at`);

@@ -140,6 +140,8 @@ export function analyseLineSource(image: GrayImage, options: { roi?: Roi } = {})
   const input = new Float64Array(2 * n);
   const output = new Float64Array(2 * n);
   const sum = new Float64Array(2 * n);
+  const rampRe = new Float64Array(n / 2 + 1);
+  const rampIm = new Float64Array(n / 2 + 1);
   let minCentre = Infinity;
   let maxCentre = -Infinity;
   for (let a = first; a < first + linesUsed; a++) {
@@ -150,16 +152,17 @@ export function analyseLineSource(image: GrayImage, options: { roi?: Roi } = {})
     minCentre = Math.min(minCentre, centre);
     maxCentre = Math.max(maxCentre, centre);
     const shift = n / 2 - centre;
+    phaseRamp(shift, n, rampRe, rampIm);
     for (let k = 0; k < n; k++) {
       const re = output[2 * k]!;
       const im = output[2 * k + 1]!;
       if (k === n / 2) {
-        sum[2 * k] += re * Math.cos(Math.PI * shift); // Nyquist bin: keep the shifted signal real
+        sum[2 * k] += re * rampRe[k]!; // Nyquist bin: keep the shifted signal real (cos of the phase only)
         continue;
       }
-      const phase = (-2 * Math.PI * (k < n / 2 ? k : k - n) * shift) / n;
-      const cos = Math.cos(phase);
-      const sin = Math.sin(phase);
+      // Negative frequencies k − n carry the conjugate factor of n − k.
+      const cos = k < n / 2 ? rampRe[k]! : rampRe[n - k]!;
+      const sin = k < n / 2 ? rampIm[k]! : -rampIm[n - k]!;
       sum[2 * k] += re * cos - im * sin;
       sum[2 * k + 1] += re * sin + im * cos;
     }
@@ -236,6 +239,25 @@ export function analyseLineSource(image: GrayImage, options: { roi?: Roi } = {})
       gaussianFit,
     },
   };
+}
+
+/**
+ * Phase factors e^(−2πik·shift/n) for k = 0 … n/2 into (re, im), by complex rotation (recurrence) re-anchored with
+ * exact cos/sin every 64 steps to keep rounding below 1e-14.
+ */
+function phaseRamp(shift: number, n: number, re: Float64Array, im: Float64Array): void {
+  const angle = (-2 * Math.PI * shift) / n;
+  const stepRe = Math.cos(angle);
+  const stepIm = Math.sin(angle);
+  for (let k = 0; k <= n / 2; k++) {
+    if (k % 64 === 0) {
+      re[k] = Math.cos(angle * k);
+      im[k] = Math.sin(angle * k);
+    } else {
+      re[k] = re[k - 1]! * stepRe - im[k - 1]! * stepIm;
+      im[k] = re[k - 1]! * stepIm + im[k - 1]! * stepRe;
+    }
+  }
 }
 
 function noLine(reason: string): AnalysisError {

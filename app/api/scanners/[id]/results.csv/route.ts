@@ -12,12 +12,16 @@ export const GET = withUser<{ id: string }>("viewFleet", async ({ req, user, par
   const scanner = await scannerFromParams(params, user);
   const range = reportQuerySchema.parse(Object.fromEntries(new URL(req.url).searchParams));
   const rows = await listResultRows(scanner.id, range);
-  const header = ["scan_id", "test_date_utc", "test", "method", "metric", "value", "unit", "status", "analysis_revision", "analysis_version", "file_name", "signed_off_at_utc", "signed_off_by"];
+  // Units live in the header: each value goes in the column of its unit (MTF at Nyquist is a ratio).
+  const header = ["scan_id", "test_date_utc", "test", "method", "metric", "value_mm", "value_cycles_per_mm", "value_ratio", "status", "analysis_revision", "analysis_version", "file_name", "signed_off_at_utc", "signed_off_by"];
+  const byUnit = (metric: string, value: number | null) => {
+    const unit = isMetricKey(metric) ? METRICS[metric].unit : "";
+    return [unit === "mm" ? value : null, unit === "cycles/mm" ? value : null, unit === "" ? value : null];
+  };
   const csv = toCsv(
     header,
     rows.map((r) => [
-      r.scanId, r.measuredAt, r.testName, r.method, r.metric, r.value,
-      isMetricKey(r.metric) ? METRICS[r.metric].unit || "ratio" : "", r.status, r.analysisRevision, r.analysisVersion, r.fileName, r.signedOffAt, r.signedOffBy,
+      r.scanId, r.measuredAt, r.testName, r.method, r.metric, ...byUnit(r.metric, r.value), r.status, r.analysisRevision, r.analysisVersion, r.fileName, r.signedOffAt, r.signedOffBy,
     ]),
   );
   const name = `halfmax-${scanner.name.replace(/[^\w]+/g, "-").toLowerCase()}-results.csv`;

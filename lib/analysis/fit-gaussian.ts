@@ -93,7 +93,8 @@ export interface GaussianFit2dInitial {
  * @param window fit rectangle in frame pixels (keep it small, e.g. ±2–3 FWHM around the peak).
  * @param initial starting values; the centre and amplitude matter most.
  * @returns {@link GaussianFit2d}: centre in frame pixels, σ and FWHM (= 2√(2 ln 2)σ) in mm, major-axis angle from +x
- *   towards +y in (−90°, 90°], RMS residual relative to the amplitude.
+ *   towards +y in (−90°, 90°] (meaningless for a round spot, where σ major = σ minor), RMS residual relative to the
+ *   amplitude.
  * @throws AnalysisError when the window has fewer pixels than 4× the 7 parameters, the fit does not converge, or it
  *   ends with a non-positive amplitude.
  */

@@ -1,0 +1,189 @@
+/**
+ * The most conspicuous object in an ROI and the shape of its region, for choosing the method (auto-method.ts) and for
+ * finding the insert of the circular-edge method:
+ * 1. background and noise: median and 1.4826·MAD of a 3-px border strip (background.ts);
+ * 2. the image is smoothed by a 5 × 5 box (noise SD / 5) and the pixel deviating most from the background, either
+ *    sign, is the seed; its smoothed deviation is the peak contrast (sign = polarity);
+ * 3. the region: pixels 4-connected to the seed whose smoothed deviation (times the polarity) exceeds half the peak;
+ * 4. shape: area, centroid, second moments (axis ratio and direction of the principal axes), whether it reaches the
+ *    ROI border, and its flatness = median raw deviation over the region / median raw deviation in its core
+ *    (r ≤ 0.3 × the equal-area radius): ≈ 0.73 for a Gaussian blob (median of a Gaussian over its half-maximum disk
+ *    is 1/√2 of the peak), → 1 for a disk with a sharp rim.
+ */
+import { measureBackground } from "./background";
+import { AnalysisError } from "./errors";
+import type { GrayImage, Roi } from "./types";
+
+export interface ObjectRegion {
+  roi: Roi;
+  background: number;
+  noiseSd: number;
+  polarity: 1 | -1;
+  /** |smoothed deviation| at the seed, image units. */
+  peakContrast: number;
+  /** Peak contrast over the noise SD of the smoothed image (noise SD / 5). */
+  peakCnr: number;
+  seedXPx: number;
+  seedYPx: number;
+  areaPx: number;
+  centroidXPx: number;
+  centroidYPx: number;
+  /** √(area/π), pixels. */
+  equalAreaRadiusPx: number;
+  /** √(λ_max/λ_min) of the region's second-moment matrix (1 for a disk, large for a line). */
+  axisRatio: number;
+  /** Direction of the major axis from +x towards +y, degrees in (−90, 90]. */
+  majorAxisDeg: number;
+  touchesRoiBorder: boolean;
+  /** Region area / ROI area. */
+  roiFraction: number;
+  flatness: number;
+  /** 5 × 5 box-smoothed ROI, row-major roi.width × roi.height (reused by callers). */
+  smoothed: Float64Array;
+}
+
+/** Defaults of {@link findObjectRegion}. */
+export const OBJECT_REGION_DEFAULTS = {
+  boxPx: 5,
+  /** The seed must exceed this multiple of the smoothed noise SD. */
+  minPeakCnr: 8,
+} as const;
+
+/**
+ * @throws AnalysisError when the ROI is outside the image or smaller than 9 × 9, or when no object stands out from
+ *   the background (peak below minPeakCnr × the smoothed noise, or a uniform ROI)
+ */
+export function findObjectRegion(image: GrayImage, roi: Roi = { x: 0, y: 0, width: image.width, height: image.height }): ObjectRegion {
+  const { boxPx, minPeakCnr } = OBJECT_REGION_DEFAULTS;
+  const bg = measureBackground(image, roi);
+  const w = roi.width;
+  const h = roi.height;
+  const smoothed = boxSmooth(image, roi, boxPx);
+  let seed = 0;
+  let peak = 0;
+  for (let i = 0; i < smoothed.length; i++) {
+    const d = Math.abs(smoothed[i]! - bg.level);
+    if (d > peak) {
+      peak = d;
+      seed = i;
+    }
+  }
+  const smoothedNoise = bg.noiseSd / boxPx;
+  if (!(peak > 0) || peak < minPeakCnr * smoothedNoise) {
+    throw new AnalysisError(
+      `no object found: the largest smoothed deviation from the background, ${peak.toPrecision(3)}, is below ${minPeakCnr}× the smoothed noise SD ${smoothedNoise.toPrecision(3)}`,
+    );
+  }
+  const polarity: 1 | -1 = smoothed[seed]! > bg.level ? 1 : -1;
+  const threshold = peak / 2;
+
+  const inRegion = new Uint8Array(w * h);
+  const stack = new Int32Array(w * h);
+  let top = 0;
+  stack[top++] = seed;
+  inRegion[seed] = 1;
+  let area = 0;
+  let sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0;
+  let touches = false;
+  while (top > 0) {
+    const i = stack[--top]!;
+    const x = i % w;
+    const y = (i - x) / w;
+    area++;
+    sx += x; sy += y; sxx += x * x; syy += y * y; sxy += x * y;
+    if (x === 0 || y === 0 || x === w - 1 || y === h - 1) touches = true;
+    const visit = (j: number): void => {
+      if (!inRegion[j] && polarity * (smoothed[j]! - bg.level) > threshold) {
+        inRegion[j] = 1;
+        stack[top++] = j;
+      }
+    };
+    if (x > 0) visit(i - 1);
+    if (x < w - 1) visit(i + 1);
+    if (y > 0) visit(i - w);
+    if (y < h - 1) visit(i + w);
+  }
+  const cx = sx / area;
+  const cy = sy / area;
+  const vxx = sxx / area - cx * cx + 1 / 12; // + 1/12: each pixel is a unit square, not a point
+  const vyy = syy / area - cy * cy + 1 / 12;
+  const vxy = sxy / area - cx * cy;
+  const mean = (vxx + vyy) / 2;
+  const spread = Math.hypot((vxx - vyy) / 2, vxy);
+  const axisRatio = Math.sqrt((mean + spread) / Math.max(mean - spread, 1e-12));
+  const majorAxisDeg = (0.5 * Math.atan2(2 * vxy, vxx - vyy) * 180) / Math.PI;
+  const radius = Math.sqrt(area / Math.PI);
+
+  return {
+    roi,
+    background: bg.level,
+    noiseSd: bg.noiseSd,
+    polarity,
+    peakContrast: peak,
+    peakCnr: smoothedNoise > 0 ? peak / smoothedNoise : Infinity,
+    seedXPx: roi.x + (seed % w),
+    seedYPx: roi.y + Math.floor(seed / w),
+    areaPx: area,
+    centroidXPx: roi.x + cx,
+    centroidYPx: roi.y + cy,
+    equalAreaRadiusPx: radius,
+    axisRatio,
+    majorAxisDeg: majorAxisDeg <= -90 ? majorAxisDeg + 180 : majorAxisDeg,
+    touchesRoiBorder: touches,
+    roiFraction: area / (w * h),
+    flatness: flatness(image, roi, inRegion, cx, cy, radius, bg.level, polarity),
+    smoothed,
+  };
+}
+
+/** Median raw deviation over the region / over its core (see file header); at most ~65 k region pixels are sampled. */
+function flatness(image: GrayImage, roi: Roi, inRegion: Uint8Array, cx: number, cy: number, radius: number, level: number, polarity: 1 | -1): number {
+  const w = roi.width;
+  const step = Math.max(1, Math.floor(inRegion.length / 65536));
+  const all: number[] = [];
+  const core: number[] = [];
+  const coreRadius = Math.max(0.75, 0.3 * radius);
+  for (let i = 0; i < inRegion.length; i++) {
+    if (!inRegion[i]) continue;
+    const x = i % w;
+    const y = (i - x) / w;
+    const d = polarity * (image.data[(roi.y + y) * image.width + roi.x + x]! - level);
+    if (i % step === 0) all.push(d);
+    if (Math.hypot(x - cx, y - cy) <= coreRadius) core.push(d);
+  }
+  const median = (v: number[]): number => {
+    v.sort((a, b) => a - b);
+    return v.length === 0 ? NaN : v[v.length >> 1]!;
+  };
+  const coreMedian = median(core);
+  return coreMedian > 0 ? median(all) / coreMedian : NaN;
+}
+
+/** k × k moving average (k odd) of the ROI, clipped and renormalised at the ROI border; separable running sums. */
+export function boxSmooth(image: GrayImage, roi: Roi, k: number): Float64Array {
+  const w = roi.width;
+  const h = roi.height;
+  const r = k >> 1;
+  const rows = new Float64Array(w * h);
+  for (let y = 0; y < h; y++) {
+    const src = (roi.y + y) * image.width + roi.x;
+    const dst = y * w;
+    let sum = 0;
+    for (let x = 0; x < Math.min(r, w); x++) sum += image.data[src + x]!;
+    for (let x = 0; x < w; x++) {
+      if (x + r < w) sum += image.data[src + x + r]!;
+      if (x - r - 1 >= 0) sum -= image.data[src + x - r - 1]!;
+      rows[dst + x] = sum / (Math.min(w - 1, x + r) - Math.max(0, x - r) + 1);
+    }
+  }
+  const out = new Float64Array(w * h);
+  const column = new Float64Array(w);
+  for (let y = 0; y < Math.min(r, h); y++) for (let x = 0; x < w; x++) column[x] += rows[y * w + x]!;
+  for (let y = 0; y < h; y++) {
+    if (y + r < h) for (let x = 0; x < w; x++) column[x] += rows[(y + r) * w + x]!;
+    if (y - r - 1 >= 0) for (let x = 0; x < w; x++) column[x] -= rows[(y - r - 1) * w + x]!;
+    const count = Math.min(h - 1, y + r) - Math.max(0, y - r) + 1;
+    for (let x = 0; x < w; x++) out[y * w + x] = column[x]! / count;
+  }
+  return out;
+}

@@ -12,7 +12,7 @@ import {
   type Element,
 } from "dicom-parser";
 import { ImageDecodeError } from "./image-decode-error";
-import { unpackPixelCells, type PixelCellLayout } from "./dicom-pixels";
+import { unpackPixelCells, type LinearTransform, type PixelCellLayout } from "./dicom-pixels";
 
 /** Frame f's compressed bytes. */
 function frameBytes(dataSet: DataSet, element: Element, frame: number, frames: number): Uint8Array {
@@ -26,7 +26,8 @@ function frameBytes(dataSet: DataSet, element: Element, frame: number, frames: n
 }
 
 /**
- * Decodes every frame into `out` (frames × rows × columns stored values, masked/sign-extended per `layout`).
+ * Decodes every frame into `out` (frames × rows × columns stored values, masked/sign-extended per `layout`, then
+ * mapped through the frame's transform).
  * @throws ImageDecodeError "unsupported_pixel_format" for colour JPEG or Bits Allocated 32, "size_mismatch" when a
  *   frame's JPEG dimensions differ from Rows/Columns, "malformed" for a corrupt JPEG stream.
  */
@@ -38,6 +39,7 @@ export function decodeJpegLosslessFrames(
   frames: number,
   layout: PixelCellLayout,
   out: Float64Array,
+  transforms: LinearTransform[],
 ): void {
   if (layout.bitsAllocated !== 8 && layout.bitsAllocated !== 16) {
     throw new ImageDecodeError(
@@ -88,6 +90,6 @@ export function decodeJpegLosslessFrames(
     }
     const cells = new Uint8Array(decoded.buffer, decoded.byteOffset, size * bytesPerSample);
     // Decoded samples are host-order (little endian) unsigned words holding the stored bit pattern.
-    unpackPixelCells(cells, 0, size, { ...layout, littleEndian: true, swapBytePairs: false }, out, f * size);
+    unpackPixelCells(cells, 0, size, { ...layout, littleEndian: true, swapBytePairs: false }, out, f * size, transforms[f]);
   }
 }

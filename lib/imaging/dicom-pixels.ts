@@ -22,10 +22,16 @@ export interface PixelCellLayout {
   swapBytePairs: boolean;
 }
 
+/** out = scale · stored + offset, applied while unpacking (rescale and MONOCHROME1 inversion in one pass). */
+export interface LinearTransform {
+  scale: number;
+  offset: number;
+}
+
 /**
  * Copies `count` pixel cells starting at `bytes[offset]` into `out[outOffset …]` as stored values (integers, or the
- * float values of float pixel data).
- * @throws ImageDecodeError "malformed" for an inconsistent bit layout (checked by checkPixelCellLayout).
+ * float values of float pixel data), mapped through `transform` when given. Expects a layout accepted by
+ * checkPixelCellLayout.
  */
 export function unpackPixelCells(
   bytes: Uint8Array,
@@ -34,31 +40,56 @@ export function unpackPixelCells(
   layout: PixelCellLayout,
   out: Float64Array,
   outOffset: number,
+  transform?: LinearTransform,
 ): void {
+  const identity = !transform || (transform.scale === 1 && transform.offset === 0);
+  if (!identity && isFastPath(layout)) {
+    // One pass over a typed view: the common case (full-width little-endian cells) with a rescale.
+    const view = cellView(bytes, offset, count, layout);
+    const { scale, offset: shift } = transform;
+    for (let i = 0; i < count; i++) out[outOffset + i] = view[i] * scale + shift;
+    return;
+  }
+  unpackStored(bytes, offset, count, layout, out, outOffset);
+  if (!identity) {
+    const { scale, offset: shift } = transform;
+    for (let i = outOffset; i < outOffset + count; i++) out[i] = out[i] * scale + shift;
+  }
+}
+
+function isFastPath(layout: PixelCellLayout): boolean {
+  return layout.littleEndian && (layout.float || layout.bitsStored === layout.bitsAllocated);
+}
+
+/** Typed-array view of little-endian cells (copied once when misaligned). */
+function cellView(bytes: Uint8Array, offset: number, count: number, layout: PixelCellLayout) {
   const bytesPerCell = layout.bitsAllocated >> 3;
-  // An aligned copy when needed, so typed-array views (host little endian) can be used.
   let src = bytes.subarray(offset, offset + count * bytesPerCell);
   // new Uint8Array(view) copies (Buffer#slice would not).
+  if (src.byteOffset % bytesPerCell !== 0) src = new Uint8Array(src);
+  if (layout.float) return layout.bitsAllocated === 64 ? new Float64Array(src.buffer, src.byteOffset, count) : new Float32Array(src.buffer, src.byteOffset, count);
+  return typedView(src.buffer, src.byteOffset, count, layout.bitsAllocated, layout.signed);
+}
+
+function unpackStored(bytes: Uint8Array, offset: number, count: number, layout: PixelCellLayout, out: Float64Array, outOffset: number): void {
+  if (isFastPath(layout)) {
+    out.set(cellView(bytes, offset, count, layout), outOffset);
+    return;
+  }
+  const bytesPerCell = layout.bitsAllocated >> 3;
+  let src = bytes.subarray(offset, offset + count * bytesPerCell);
   if (src.byteOffset % bytesPerCell !== 0) src = new Uint8Array(src);
   const { buffer, byteOffset } = src;
 
   if (layout.float) {
-    if (layout.littleEndian) {
-      const view = layout.bitsAllocated === 64 ? new Float64Array(buffer, byteOffset, count) : new Float32Array(buffer, byteOffset, count);
-      out.set(view, outOffset);
-    } else {
-      const dv = new DataView(buffer, byteOffset, count * bytesPerCell);
-      if (layout.bitsAllocated === 64) for (let i = 0; i < count; i++) out[outOffset + i] = dv.getFloat64(i * 8, false);
-      else for (let i = 0; i < count; i++) out[outOffset + i] = dv.getFloat32(i * 4, false);
-    }
+    // Big endian (little endian took the fast path above).
+    const dv = new DataView(buffer, byteOffset, count * bytesPerCell);
+    if (layout.bitsAllocated === 64) for (let i = 0; i < count; i++) out[outOffset + i] = dv.getFloat64(i * 8, false);
+    else for (let i = 0; i < count; i++) out[outOffset + i] = dv.getFloat32(i * 4, false);
     return;
   }
 
   const full = layout.bitsStored === layout.bitsAllocated; // then highBit = bitsAllocated − 1 (checked)
-  if (full && layout.littleEndian) {
-    out.set(typedView(buffer, byteOffset, count, layout.bitsAllocated, layout.signed), outOffset);
-    return;
-  }
 
   // General path: read the raw cell as an unsigned integer, then extract the stored bits.
   const raw = readCellsUnsigned(buffer, byteOffset, count, layout);

@@ -13,7 +13,7 @@ import { sniffDicomLayout, type DicomLayout } from "./sniff";
 import { requireReadableTransferSyntax, type TransferSyntaxInfo } from "./transfer-syntax";
 import { readDicomAttributes } from "./dicom-attributes";
 import { readRescales, readSpacing } from "./dicom-header";
-import { checkPixelCellLayout, storedValueRange, unpackPixelCells, type PixelCellLayout } from "./dicom-pixels";
+import { checkPixelCellLayout, storedValueRange, unpackPixelCells, type LinearTransform, type PixelCellLayout } from "./dicom-pixels";
 import { decodeJpegLosslessFrames } from "./dicom-jpeg-lossless";
 import { monochrome1Warning, readImagePixelModule, type ImagePixelModule } from "./dicom-image-pixel";
 
@@ -138,6 +138,27 @@ function checkNativeLength(element: Element, bytesAvailable: number, module: Ima
 }
 
 /**
+ * Per-frame map from stored value to output value: the Rescale (value = slope · stored + intercept), followed for
+ * MONOCHROME1 by the inversion v′ = R(min) + R(max) − v within the rescaled stored range, folded into one linear map.
+ * Float pixel data have no rescale; MONOCHROME1 float data are negated.
+ */
+function frameTransforms(dataSet: DataSet, module: ImagePixelModule, cell: PixelCellLayout): LinearTransform[] {
+  const rescales = cell.float ? null : readRescales(dataSet, module.frames);
+  const range = storedValueRange(cell);
+  const out: LinearTransform[] = [];
+  for (let f = 0; f < module.frames; f++) {
+    const r = rescales ? rescales[f] : { slope: 1, intercept: 0 };
+    if (module.photometric !== "MONOCHROME1") out.push({ scale: r.slope, offset: r.intercept });
+    else if (cell.float) out.push({ scale: -1, offset: 0 });
+    else {
+      const sum = r.slope * range.min + r.intercept + r.slope * range.max + r.intercept;
+      out.push({ scale: -r.slope, offset: sum - r.intercept });
+    }
+  }
+  return out;
+}
+
+/**
  * Decodes a DICOM file into physical values (see DecodedImage).
  *
  * Values: stored values (Bits Stored extracted from the cell at High Bit, sign-extended when Pixel Representation is 1)
@@ -183,27 +204,26 @@ function decodeDicomUnchecked(bytes: Uint8Array, options: DicomDecodeOptions): D
 
   const size = module.rows * module.columns;
   const data = new Float64Array(size * module.frames);
+  const transforms = frameTransforms(dataSet, module, cell);
   if (transferSyntax.kind === "jpeg-lossless") {
     if (!element.encapsulatedPixelData) throw new ImageDecodeError("malformed", "JPEG Lossless transfer syntax but the Pixel Data is not encapsulated");
-    decodeJpegLosslessFrames(dataSet, element, module.rows, module.columns, module.frames, cell, data);
+    decodeJpegLosslessFrames(dataSet, element, module.rows, module.columns, module.frames, cell, data, transforms);
   } else {
     warnings.push(...checkNativeLength(element, dataSet.byteArray.length, module, module.bitsAllocated >> 3));
-    unpackPixelCells(dataSet.byteArray, element.dataOffset, size * module.frames, cell, data, 0);
-  }
-
-  if (float) checkFiniteSamples(data, "the float Pixel Data");
-  const rescales = float ? null : readRescales(dataSet, module.frames);
-  const range = storedValueRange(cell);
-  for (let f = 0; f < module.frames; f++) {
-    const start = f * size;
-    const end = start + size;
-    const r = rescales?.[f];
-    if (r && (r.slope !== 1 || r.intercept !== 0)) for (let i = start; i < end; i++) data[i] = data[i] * r.slope + r.intercept;
-    if (module.photometric === "MONOCHROME1") {
-      const sum = r ? r.slope * range.min + r.intercept + r.slope * range.max + r.intercept : 0;
-      for (let i = start; i < end; i++) data[i] = sum - data[i];
+    const frameBytes = size * (module.bitsAllocated >> 3);
+    if (cell.swapBytePairs && size % 2 === 1) {
+      // Swapped byte pairs straddle odd-sized frames: unpack everything, then map each frame.
+      unpackPixelCells(dataSet.byteArray, element.dataOffset, size * module.frames, cell, data, 0);
+      transforms.forEach((t, f) => {
+        for (let i = f * size; i < (f + 1) * size; i++) data[i] = data[i] * t.scale + t.offset;
+      });
+    } else {
+      for (let f = 0; f < module.frames; f++) {
+        unpackPixelCells(dataSet.byteArray, element.dataOffset + f * frameBytes, size, cell, data, f * size, transforms[f]);
+      }
     }
   }
+  if (float) checkFiniteSamples(data, "the float Pixel Data");
   if (module.photometric === "MONOCHROME1") warnings.push(monochrome1Warning(float !== 0));
 
   const attributes = readDicomAttributes(dataSet);

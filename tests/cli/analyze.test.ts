@@ -183,8 +183,21 @@ print(json.dumps({"min": float(v.min()), "max": float(v.max()), "mean": float(v.
     expect(inspect.warnings).toEqual([]);
   });
 
+  it("analyze image.raw --raw 5x4x2:int16 --inspect reads headerless little-endian samples", () => {
+    const values = Array.from({ length: 40 }, (_, i) => (i % 2 ? -1 : 1) * i * 100);
+    const file = save("image.raw", new Uint8Array(Int16Array.from(values).buffer));
+    const r = cli(file, "--raw", "5x4x2:int16", "--inspect");
+    expect(r.status).toBe(0);
+    const inspect = JSON.parse(r.stdout);
+    expect([inspect.columns, inspect.rows, inspect.frames]).toEqual([5, 4, 2]);
+    expect([inspect.min, inspect.max]).toEqual([Math.min(...values), Math.max(...values)]);
+    expectClose(inspect.mean, values.reduce((s, v) => s + v, 0) / 40, { abs: 1e-12 });
+    expect(inspect.pixelSpacingMm).toBeNull();
+  });
+
   it("analyze point.dcm (no flags) prints a readable table with units, version and an MTF table", () => {
-    const r = cli(path.join(dir, "point.dcm"));
+    const phantom = makeGaussianPoint({ width: 64, height: 64, pixelSpacingMm: 0.25, sigmaXMm: 0.6, centreXPx: 31.5, centreYPx: 32.2, amplitude: 1000, background: 100, seed: 29 });
+    const r = cli(save("point-text.dcm", writeDicom(phantom.image, { transferSyntax: "explicit-le", bitsAllocated: 16, signed: false, modality: "NM" })));
     expect(r.status).toBe(0);
     expect(r.stderr).toBe("");
     for (const text of ["FWHM", "FWTM", "MTF50", "MTF10", "MTF at Nyquist", "lp/mm", " mm", "Pixel spacing", ANALYSIS_VERSION, "f/Nyquist"]) {
@@ -200,13 +213,18 @@ describe("analyze CLI bad input: exit code 2, one line on stderr, nothing on std
     png.data = Buffer.alloc(64 * 64, 50);
     return save("flat.png", new Uint8Array(PNG.sync.write(png, { colorType: 0, inputColorType: 0, inputHasAlpha: false })));
   };
+  // Each case makes its own input, so any subset of the cases can run alone.
+  const volume = () => save("three-frames.dcm", writeDicom({ width: 16, height: 16, frames: 3, data: new Float64Array(768).fill(5), pixelSpacingMm: { x: 1, y: 1 } }, {
+    transferSyntax: "explicit-le", bitsAllocated: 8, signed: false, modality: "NM",
+  }));
   const cases: [string, () => string[], string][] = [
     ["a missing file", () => [path.join(dir, "does-not-exist.dcm")], "no such file"],
     ["unrecognised bytes", () => [garbage()], "unrecognised file format"],
     ["a PNG without --pixel-spacing", () => [flatPng()], "--pixel-spacing"],
     ["a flat image analysed as a point source", () => [flatPng(), "--method", "point", "--pixel-spacing", "0.2"], ""],
-    ["an unknown --method", () => [path.join(dir, "point.dcm"), "--method", "blob"], "--method"],
-    ["a malformed --roi", () => [path.join(dir, "point.dcm"), "--roi", "1,2,3"], "--roi"],
+    ["an unknown --method", () => [volume(), "--method", "blob"], "--method"],
+    ["a malformed --roi", () => [volume(), "--roi", "1,2,3"], "--roi"],
+    ["--frame beyond the last frame", () => [volume(), "--frame", "4"], "3 frame(s)"],
   ];
   it.each(cases)("analyze with %s exits 2 with a clear message", (_, args, mention) => {
     const r = cli(...args());

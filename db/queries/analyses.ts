@@ -32,7 +32,8 @@ async function driftForNewResult(tx: DbOrTx, scannerId: number, testId: number, 
   const flags: DriftFlag[] = [];
   for (const m of evaluation.metrics) {
     const b = ctx.baselines.get(m.metric);
-    if (!b || !b.sd || b.sd <= 0 || m.value === null) continue;
+    // Only metrics that are evaluated (have a tolerance) are watched for drift.
+    if (!b || !b.sd || b.sd <= 0 || m.value === null || m.status === "no-baseline") continue;
     const rows = await tx
       .select({ value: metricValues.value, at: metricValues.measuredAt })
       .from(metricValues)

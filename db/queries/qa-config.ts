@@ -1,11 +1,11 @@
 import { and, eq, isNull } from "drizzle-orm";
 import type { DbOrTx } from "@/db/client";
 import { baselines, tolerances, type Modality } from "@/db/schema";
-import { defaultTolerance, isMetricKey, type MetricKey, type Tolerance } from "@/lib/qa";
+import { DEFAULT_EVALUATED_METRICS, defaultTolerance, isMetricKey, type MetricKey, type Tolerance } from "@/lib/qa";
 
 export interface QaContext {
   baselines: Map<MetricKey, { id: number; mean: number; sd: number | null; n: number; setAt: Date; mtfCurve: { frequencyCyclesPerMm: number[]; value: number[] } | null }>;
-  /** Stored tolerance per metric, else the modality default (marked by `isDefault`). */
+  /** Stored tolerance per metric, else the modality default (marked by `isDefault`) for DEFAULT_EVALUATED_METRICS. */
   tolerances: Map<MetricKey, Tolerance & { isDefault: boolean }>;
 }
 
@@ -22,6 +22,8 @@ export async function getQaContext(tx: DbOrTx, scannerId: number, testId: number
   for (const t of tRows) {
     if (isMetricKey(t.metric)) ctx.tolerances.set(t.metric, { metric: t.metric, mode: t.mode, warning: t.warning, action: t.action, source: t.source, isDefault: false });
   }
-  for (const m of metrics) if (!ctx.tolerances.has(m)) ctx.tolerances.set(m, { ...defaultTolerance(modality, m), isDefault: true });
+  for (const m of metrics) {
+    if (!ctx.tolerances.has(m) && DEFAULT_EVALUATED_METRICS.includes(m)) ctx.tolerances.set(m, { ...defaultTolerance(modality, m), isDefault: true });
+  }
   return ctx;
 }

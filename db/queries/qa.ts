@@ -2,7 +2,7 @@ import { and, asc, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { analyses, baselines, metricValues, qaTests, scans, tolerances, type Modality } from "@/db/schema";
 import { AppError } from "@/lib/errors";
-import { averageMtfCurves, computeBaseline, defaultTolerance, evaluateResult, isMetricKey, METRICS, validateTolerance, worstStatus, type MetricKey, type Status, QaError } from "@/lib/qa";
+import { averageMtfCurves, computeBaseline, DEFAULT_EVALUATED_METRICS, defaultTolerance, evaluateResult, isMetricKey, METRICS, validateTolerance, worstStatus, type MetricKey, type Status, QaError } from "@/lib/qa";
 import type { CreateBaselineInput, QaTestInput, ToleranceInput } from "@/lib/validations/qa";
 import { insertAuditEvent } from "./audit";
 import { getQaContext } from "./qa-config";
@@ -99,9 +99,10 @@ export async function listTolerances(scannerId: number, modality: Modality) {
       .filter((m) => METRICS[m].methods.includes(t.method))
       .map((m) => {
         const s = stored.find((x) => x.testId === t.id && x.metric === m);
-        if (s) return { testId: t.id, metric: m, mode: s.mode, warning: s.warning, action: s.action, source: s.source, direction: METRICS[m].direction, isDefault: false, updatedAt: s.updatedAt };
+        if (s) return { testId: t.id, metric: m, mode: s.mode, warning: s.warning, action: s.action, source: s.source, direction: METRICS[m].direction, isDefault: false, evaluated: true, updatedAt: s.updatedAt };
         const d = defaultTolerance(modality, m);
-        return { testId: t.id, metric: m, mode: d.mode, warning: d.warning, action: d.action, source: d.source, direction: METRICS[m].direction, isDefault: true, updatedAt: null };
+        const evaluated = DEFAULT_EVALUATED_METRICS.includes(m);
+        return { testId: t.id, metric: m, mode: d.mode, warning: d.warning, action: d.action, source: evaluated ? d.source : `Not evaluated until a tolerance is set (suggested levels shown). ${d.source}`, direction: METRICS[m].direction, isDefault: true, evaluated, updatedAt: null };
       }),
   );
 }

@@ -46,9 +46,11 @@ export async function getTrend(scannerId: number, modality: Modality, q: { metri
       .orderBy(asc(auditEvents.at)),
   ]);
   const baseline = ctx.baselines.get(q.metric) ?? null;
-  const tolerance = ctx.tolerances.get(q.metric) ?? { ...defaultTolerance(modality, q.metric), isDefault: true };
+  const stored = ctx.tolerances.get(q.metric);
+  const tolerance = stored ? { ...stored, evaluated: true } : { ...defaultTolerance(modality, q.metric), isDefault: true, evaluated: false };
   let band: TrendBand | null = null;
-  if (tolerance.mode === "absolute") band = { warningLimit: tolerance.warning, actionLimit: tolerance.action };
+  if (!tolerance.evaluated) band = null;
+  else if (tolerance.mode === "absolute") band = { warningLimit: tolerance.warning, actionLimit: tolerance.action };
   else if (baseline) {
     const sign = def.direction === "higher-is-worse" ? 1 : -1;
     band = { warningLimit: baseline.mean * (1 + (sign * tolerance.warning) / 100), actionLimit: baseline.mean * (1 + (sign * tolerance.action) / 100) };
@@ -72,7 +74,7 @@ export async function getTrend(scannerId: number, modality: Modality, q: { metri
     points,
     baseline: baseline ? { mean: baseline.mean, sd: baseline.sd, n: baseline.n, setAt: baseline.setAt } : null,
     baselineHistory: history.map((b) => ({ id: b.id, mean: b.mean, sd: b.sd, n: b.n, setAt: b.setAt, supersededAt: b.supersededAt, reason: b.reason })),
-    tolerance: { mode: tolerance.mode, warning: tolerance.warning, action: tolerance.action, source: tolerance.source, isDefault: tolerance.isDefault },
+    tolerance: { mode: tolerance.mode, warning: tolerance.warning, action: tolerance.action, source: tolerance.source, isDefault: tolerance.isDefault, evaluated: tolerance.evaluated },
     band,
     controlLimits,
     driftFlags,

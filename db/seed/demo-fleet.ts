@@ -41,17 +41,17 @@ export const DEMO_SCANNERS: DemoScanner[] = [
   {
     key: "ct2", site: "kestrel", name: "CT Kestrel", modality: "CT", manufacturer: "Lumeris Imaging", model: "Helix S64",
     serialNumber: "LM-HS64-2207", location: "Radiology, room 3", method: "point",
-    test: { name: "Bead PSF", phantom: "0.28 mm tungsten-carbide bead", protocol: "120 kV, 250 mAs, 100 mm display FOV, sharp kernel", frequency: "weekly" },
+    test: { name: "Bead PSF", phantom: "0.28 mm tungsten-carbide bead", protocol: "120 kV, 250 mAs, 50 mm display FOV, sharp kernel", frequency: "weekly" },
   },
   {
     key: "pet", site: "general", name: "PET/CT Orion", modality: "PT", manufacturer: "Tessaract Systems", model: "Orion TF",
     serialNumber: "TS-OR-0091", location: "Nuclear medicine, bay 1", method: "point",
-    test: { name: "Point-source resolution at 1 cm", phantom: "F-18 capillary point source in air", protocol: "FBP, 2 mm voxels, no smoothing", frequency: "monthly" },
+    test: { name: "Point-source resolution at 1 cm", phantom: "F-18 capillary point source in air", protocol: "FBP, 1 mm voxels, no smoothing", frequency: "weekly" },
   },
   {
     key: "gc", site: "general", name: "Gamma camera Vela", modality: "NM", manufacturer: "Corvane Medical", model: "Vela DH",
     serialNumber: "CV-VDH-1180", location: "Nuclear medicine, room 2", method: "line",
-    test: { name: "System LSF at 100 mm", phantom: "Tc-99m capillary line source, 100 mm from LEHR collimator", protocol: "256×256 matrix, zoom 2", frequency: "monthly" },
+    test: { name: "System LSF at 100 mm", phantom: "Tc-99m capillary line source, 100 mm from LEHR collimator", protocol: "256×256 matrix, zoom 2", frequency: "weekly" },
   },
   {
     key: "dr", site: "kestrel", name: "DR Room 1", modality: "DX", manufacturer: "Lumeris Imaging", model: "Flatline 43",

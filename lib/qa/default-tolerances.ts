@@ -92,3 +92,11 @@ export function defaultTolerance(modality: Modality, metric: MetricKey): Toleran
 export function defaultTolerances(modality: Modality): Tolerance[] {
   return METRIC_KEYS.map((metric) => defaultTolerance(modality, metric));
 }
+
+/**
+ * Metrics evaluated against a default tolerance when the physicist has set none: the widths and MTF50/MTF10, which
+ * are the usual constancy indicators (common practice). FWTM and MTF at Nyquist are recorded and trended but only
+ * evaluated once a tolerance is set for them: FWTM is dominated by tails and noise, and MTF at Nyquist is often
+ * close to zero, where a relative tolerance is meaningless.
+ */
+export const DEFAULT_EVALUATED_METRICS: readonly MetricKey[] = ["fwhmMm", "fwhmXMm", "fwhmYMm", "mtf50", "mtf10"];

@@ -8,15 +8,16 @@
  *    least-squares line fit (edge-locate.ts) → edge angle; angles outside [minAngleDeg, maxAngleDeg] are rejected;
  * 3. rows trimmed to a whole number of phase cycles (1/tan α rows each), so the sub-pixel phases fill the bins evenly;
  * 4. every pixel within ±halfWidthPx (along the normal) of the edge is projected onto the edge normal and averaged into
- *    bins of p/binsPerPixel (p = pixel pitch across the edge) → oversampled ESF;
+ *    bins of p/binsPerPixel (p = pixel pitch across the edge) → oversampled ESF (edge-projection.ts);
  * 5. two-tap derivative (ISO 12233) → LSF, Hamming window, |FFT|, MTF(0) = 1, capped derivative correction and
  *    bin-averaging correction (edge-spread.ts).
  * The normal axis points towards increasing column (vertical edge) or row (horizontal edge) index.
  */
 import { assertRoiInImage } from "./background";
-import { extractEdgeFrame, frameRegionToRoi, type EdgeFrame } from "./edge-frame";
+import { extractEdgeFrame, frameRegionToRoi } from "./edge-frame";
 import { locateEdgeCoarse, refineEdgeLine, type EdgeLine } from "./edge-locate";
-import { EDGE_SPREAD_DEFAULTS, EsfAccumulator, esfToMtf, meanOver, mtfNoiseSd } from "./edge-spread";
+import { projectEdge } from "./edge-projection";
+import { EDGE_SPREAD_DEFAULTS, esfToMtf, meanOver, mtfNoiseSd } from "./edge-spread";
 import { AnalysisError } from "./errors";
 import { summariseMtf } from "./mtf-metrics";
 import { lsfWidths } from "./lsf-widths";
@@ -130,26 +131,9 @@ export function analyseSlantedEdge(image: GrayImage, options: SlantedEdgeOptions
   }
 
   const binWidthMm = pu / o.binsPerPixel;
-  const accumulator = new EsfAccumulator(-leftPx * pu, rightPx * pu, binWidthMm);
-  const mmPerPx = pu * cos;
-  let uMinUsed = frame.cols;
-  let uMaxUsed = -1;
-  let pixelsUsed = 0;
-  const rowRange = (v: number): [number, number] => {
-    const ue = edgeAt(v);
-    return [Math.max(0, Math.ceil(ue - leftPx / cos)), Math.min(frame.cols - 1, Math.floor(ue + rightPx / cos))];
-  };
-  for (let v = v0; v <= v1; v++) {
-    const ue = edgeAt(v);
-    const [c0, c1] = rowRange(v);
-    const offset = v * frame.cols;
-    for (let c = c0; c <= c1; c++) accumulator.add((c - ue) * mmPerPx, frame.data[offset + c]!);
-    pixelsUsed += c1 - c0 + 1;
-    uMinUsed = Math.min(uMinUsed, c0);
-    uMaxUsed = Math.max(uMaxUsed, c1);
-  }
-  const esf = accumulator.finish();
-  const noiseSd = plateauNoiseSd(frame, accumulator, v0, v1, edgeAt, rowRange, mmPerPx, 0.5 * Math.min(leftPx, rightPx) * pu) ?? coarse.noiseSd;
+  const projection = projectEdge(frame, line, { v0, v1, leftPx, rightPx, cos, binWidthMm });
+  const { esf, pixelsUsed, uMin: uMinUsed, uMax: uMaxUsed } = projection;
+  const noiseSd = projection.plateauNoiseSd ?? coarse.noiseSd;
 
   const edgeBins = Math.max(2, Math.round(0.1 * esf.value.length));
   const lowSide = meanOver(esf.value, 0, edgeBins);
@@ -248,34 +232,4 @@ export function analyseSlantedEdge(image: GrayImage, options: SlantedEdgeOptions
       fftLength: chain.fftLength,
     },
   };
-}
-
-/** RMS deviation of plateau pixels (|d| ≥ plateauMm) from their bin means; null when fewer than 16 such pixels. */
-function plateauNoiseSd(
-  frame: EdgeFrame,
-  accumulator: EsfAccumulator,
-  v0: number,
-  v1: number,
-  edgeAt: (v: number) => number,
-  rowRange: (v: number) => [number, number],
-  mmPerPx: number,
-  plateauMm: number,
-): number | null {
-  let sum = 0;
-  let n = 0;
-  for (let v = v0; v <= v1; v++) {
-    const ue = edgeAt(v);
-    const [c0, c1] = rowRange(v);
-    const offset = v * frame.cols;
-    for (let c = c0; c <= c1; c++) {
-      const d = (c - ue) * mmPerPx;
-      if (Math.abs(d) < plateauMm) continue;
-      const bin = accumulator.binIndex(d);
-      if (bin < 0) continue;
-      const r = frame.data[offset + c]! - accumulator.binMean(bin);
-      sum += r * r;
-      n++;
-    }
-  }
-  return n >= 16 ? Math.sqrt(sum / n) : null;
 }

@@ -156,6 +156,15 @@ describe("decodeDicom header rules", () => {
     expect(decoded.pixelSpacingSource).toBeNull();
   });
 
+  it.each(["implicit-le", "explicit-le", "explicit-be"] as const)("decodeDicom(bare %s data set without File Meta) infers the syntax and warns", (transferSyntax) => {
+    const full = writeDicom(image(6, 5), { transferSyntax, bitsAllocated: 16, signed: false, modality: "OT" });
+    const groupLength = new DataView(full.buffer).getUint32(140, true); // (0002,0000) value, PS3.10 §7.1
+    const decoded = decodeDicom(full.subarray(132 + 12 + groupLength));
+    expect(Array.from(decoded.data)).toEqual(Array.from(image(6, 5).data));
+    expect(decoded.transferSyntaxUid).toBe({ "implicit-le": "1.2.840.10008.1.2", "explicit-le": "1.2.840.10008.1.2.1", "explicit-be": "1.2.840.10008.1.2.2" }[transferSyntax]);
+    expect(decoded.warnings.map((w) => w.code)).toContain("no_file_meta");
+  });
+
   it("decodeDicom(Part 10 file with the 128-byte preamble and DICM removed) still reads it", () => {
     const decoded = decodeDicom(file.subarray(132));
     expect(decoded.width).toBe(64);

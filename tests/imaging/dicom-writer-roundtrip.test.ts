@@ -122,3 +122,27 @@ print(json.dumps(out))
     });
   });
 });
+
+describe("writeDicom(invalid input) throws instead of writing a wrong file", () => {
+  const ok = { width: 2, height: 2, data: [1, 2, 3, 4], pixelSpacingMm: { x: 1, y: 1 } };
+  const options = { transferSyntax: "explicit-le", bitsAllocated: 16, signed: false, modality: "OT" } as const;
+
+  it("writeDicom(data length ≠ width × height × frames) names both counts", () => {
+    expect(() => writeDicom({ ...ok, data: [1, 2, 3] }, options)).toThrow(/3 values .* 4/);
+  });
+
+  it("writeDicom(values outside a given rescale's stored range) refuses to clip", () => {
+    expect(() => writeDicom({ ...ok, data: [0, 1, 2, 70000] }, { ...options, rescaleSlope: 1, rescaleIntercept: 0 })).toThrow(/outside 0…65535/);
+  });
+
+  it("writeDicom(NaN value, writer-owned or unknown attribute, non-ASCII text) throws", () => {
+    expect(() => writeDicom({ ...ok, data: [1, Number.NaN, 3, 4] }, options)).toThrow(/not a finite number/);
+    expect(() => writeDicom(ok, { ...options, attributes: { PixelSpacing: "1\\1" } })).toThrow(/set by the writer/);
+    expect(() => writeDicom(ok, { ...options, attributes: { PatientsFavouriteColour: "red" } })).toThrow(/unknown attribute/);
+    expect(() => writeDicom(ok, { ...options, attributes: { Manufacturer: "Größe" } })).toThrow(/printable ASCII/);
+  });
+
+  it("writeDicom(width 70000) throws: Rows/Columns are 16-bit (PS3.3 C.7.6.3)", () => {
+    expect(() => writeDicom({ ...ok, width: 70000, height: 1, data: new Float64Array(70000) }, options)).toThrow(/65535/);
+  });
+});

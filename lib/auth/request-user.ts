@@ -1,4 +1,5 @@
 import { getServerSession } from "next-auth";
+import { decode } from "next-auth/jwt";
 import { getActiveUserById, getUserByApiTokenHash, toSessionUser, type SessionUser } from "@/db/queries/users";
 import { AppError } from "@/lib/errors";
 import { can, type Permission } from "./roles";
@@ -18,9 +19,34 @@ export async function authenticateRequest(req: Request): Promise<SessionUser> {
     if (!user) throw new AppError({ code: "unauthorized", message: "API token is invalid or revoked" });
     return user;
   }
-  const user = await getSessionUser();
+  const user = await sessionUserFromCookie(req);
   if (!user) throw new AppError({ code: "unauthorized", message: "Sign in or send an API token (Authorization: Bearer …)" });
   return user;
+}
+
+const SESSION_COOKIES = ["__Secure-next-auth.session-token", "next-auth.session-token"];
+
+/** The next-auth session from the request's own cookie header (no dependence on Next's request scope). */
+async function sessionUserFromCookie(req: Request): Promise<SessionUser | null> {
+  const cookies = new Map(
+    (req.headers.get("cookie") ?? "")
+      .split(";")
+      .map((c) => c.trim().split("="))
+      .filter((p) => p.length >= 2)
+      .map(([k, ...v]) => [k!, decodeURIComponent(v.join("="))]),
+  );
+  const raw = SESSION_COOKIES.map((n) => cookies.get(n)).find(Boolean);
+  const secret = process.env.NEXTAUTH_SECRET;
+  if (!raw || !secret) return null;
+  try {
+    const token = await decode({ token: raw, secret });
+    const id = token?.uid;
+    if (!id) return null;
+    const user = await getActiveUserById(Number(id));
+    return user ? toSessionUser(user) : null;
+  } catch {
+    return null;
+  }
 }
 
 /** The signed-in, still-active user of the current request (server components, actions), or null. */

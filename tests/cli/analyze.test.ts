@@ -225,6 +225,15 @@ describe("analyze CLI bad input: exit code 2, one line on stderr, nothing on std
     ["an unknown --method", () => [volume(), "--method", "blob"], "--method"],
     ["a malformed --roi", () => [volume(), "--roi", "1,2,3"], "--roi"],
     ["--frame beyond the last frame", () => [volume(), "--frame", "4"], "3 frame(s)"],
+    [
+      "an --roi that leaves out the point source (so the ROI reaches the analysis)",
+      () => {
+        const phantom = makeGaussianPoint({ width: 64, height: 64, pixelSpacingMm: 0.25, sigmaXMm: 0.6, centreXPx: 45, centreYPx: 45, amplitude: 1000, background: 100, noiseSd: 2, seed: 30 });
+        const file = save("point-corner.dcm", writeDicom(phantom.image, { transferSyntax: "explicit-le", bitsAllocated: 16, signed: false, modality: "NM" }));
+        return [file, "--method", "point", "--roi", "0,0,20,20"];
+      },
+      "",
+    ],
   ];
   it.each(cases)("analyze with %s exits 2 with a clear message", (_, args, mention) => {
     const r = cli(...args());

@@ -38,26 +38,32 @@ export async function getFleetStatus(scannerIds: number[], now = new Date()): Pr
   if (scannerIds.length === 0) return out;
   for (const id of scannerIds) out.set(id, { tests: [], lastTestAt: null, latestStatus: null, openAlerts: 0, due: "ok", sparkline: [] });
   const yearAgo = new Date(now.getTime() - 365 * 86_400_000);
-  const [tests, latest, alertCounts, spark] = await Promise.all([
-    db().select().from(qaTests).where(and(inArray(qaTests.scannerId, scannerIds), eq(qaTests.active, true))),
-    db()
-      .select({ testId: scans.testId, scanId: scans.id, at: scans.acquiredAt, status: analyses.status })
-      .from(scans)
-      .innerJoin(analyses, and(eq(analyses.scanId, scans.id), eq(analyses.isCurrent, true)))
-      .innerJoin(
-        sql`(select ${scans.testId} as t_id, max(${scans.acquiredAt}) as max_at from ${scans} where ${inArray(scans.scannerId, scannerIds)} group by ${scans.testId}) latest`,
-        sql`latest.t_id = ${scans.testId} and latest.max_at = ${scans.acquiredAt}`,
-      ),
+  const tests = await db().select().from(qaTests).where(and(inArray(qaTests.scannerId, scannerIds), eq(qaTests.active, true)));
+  const testIds = tests.map((t) => t.id);
+  const [latest, alertCounts, spark] = await Promise.all([
+    testIds.length === 0
+      ? Promise.resolve([])
+      : db()
+          .select({ testId: scans.testId, scanId: scans.id, at: scans.acquiredAt, status: analyses.status })
+          .from(scans)
+          .innerJoin(analyses, and(eq(analyses.scanId, scans.id), eq(analyses.isCurrent, true)))
+          .innerJoin(
+            // Loose index scan on scans(test_id, acquired_at): one probe per test.
+            sql`(select ${scans.testId} as t_id, max(${scans.acquiredAt}) as max_at from ${scans} where ${inArray(scans.testId, testIds)} group by ${scans.testId}) latest`,
+            sql`latest.t_id = ${scans.testId} and latest.max_at = ${scans.acquiredAt}`,
+          ),
     db()
       .select({ scannerId: alerts.scannerId, n: sql<number>`count(*)` })
       .from(alerts)
       .where(and(inArray(alerts.scannerId, scannerIds), inArray(alerts.state, ["open", "acknowledged"])))
       .groupBy(alerts.scannerId),
-    db()
-      .select({ scannerId: metricValues.scannerId, at: metricValues.measuredAt, value: metricValues.value })
-      .from(metricValues)
-      .where(and(inArray(metricValues.scannerId, scannerIds), eq(metricValues.metric, "mtf50"), eq(metricValues.isCurrent, true), gte(metricValues.measuredAt, yearAgo)))
-      .orderBy(metricValues.scannerId, metricValues.measuredAt),
+    db().execute(sql`
+      select scanner_id as scannerId, measured_at as at, value from (
+        select ${metricValues.scannerId}, ${metricValues.measuredAt}, ${metricValues.value},
+               row_number() over (partition by ${metricValues.scannerId} order by ${metricValues.measuredAt} desc) as rn
+        from ${metricValues}
+        where ${and(inArray(metricValues.scannerId, scannerIds), eq(metricValues.metric, "mtf50"), eq(metricValues.isCurrent, true), gte(metricValues.measuredAt, yearAgo))}
+      ) recent where rn <= ${SPARK_POINTS} order by scanner_id, measured_at`),
   ]);
   const latestByTest = new Map<number, (typeof latest)[number]>();
   for (const l of latest) if (l.testId !== null) {
@@ -74,7 +80,7 @@ export async function getFleetStatus(scannerIds: number[], now = new Date()): Pr
     if (DUE_SEVERITY[d.state] > DUE_SEVERITY[s.due]) s.due = d.state;
   }
   for (const a of alertCounts) out.get(a.scannerId)!.openAlerts = Number(a.n);
-  for (const p of spark) if (p.value !== null) out.get(p.scannerId)!.sparkline.push({ at: p.at, value: p.value });
-  for (const s of out.values()) if (s.sparkline.length > SPARK_POINTS) s.sparkline = s.sparkline.slice(-SPARK_POINTS);
+  const sparkRows = (spark as unknown as [{ scannerId: number; at: Date; value: number | null }[]])[0];
+  for (const p of sparkRows) if (p.value !== null) out.get(Number(p.scannerId))?.sparkline.push({ at: new Date(p.at), value: Number(p.value) });
   return out;
 }

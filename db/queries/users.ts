@@ -48,14 +48,18 @@ export async function listActiveUsersByRole(role: Role): Promise<SessionUser[]> 
 /** Resolve a Bearer token to its active owner and stamp last use; undefined when unknown, revoked or deactivated. */
 export async function getUserByApiTokenHash(tokenHash: string): Promise<SessionUser | undefined> {
   const rows = await db()
-    .select({ user: users, tokenId: apiTokens.id, revokedAt: apiTokens.revokedAt })
+    .select({ user: users, tokenId: apiTokens.id, revokedAt: apiTokens.revokedAt, lastUsedAt: apiTokens.lastUsedAt })
     .from(apiTokens)
     .innerJoin(users, eq(apiTokens.userId, users.id))
     .where(eq(apiTokens.tokenHash, tokenHash))
     .limit(1);
   const row = rows[0];
   if (!row || row.revokedAt || !row.user.active) return undefined;
-  await db().update(apiTokens).set({ lastUsedAt: new Date() }).where(eq(apiTokens.id, row.tokenId));
+  // Stamp "last used" at most once a minute: a write per request would serialise a script's parallel calls.
+  const now = new Date();
+  if (!row.lastUsedAt || now.getTime() - row.lastUsedAt.getTime() > 60_000) {
+    await db().update(apiTokens).set({ lastUsedAt: now }).where(eq(apiTokens.id, row.tokenId));
+  }
   return toSessionUser(row.user);
 }
 

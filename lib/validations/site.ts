@@ -1,9 +1,10 @@
 import { z } from "zod";
 
-export const createSiteSchema = z.object({
-  name: z.string().trim().min(1, { message: "Give the site a name" }).max(120, { message: "At most 120 characters" }),
-  city: z.string().trim().max(120, { message: "At most 120 characters" }).default(""),
-});
+const siteName = z.string().trim().min(1, { message: "Give the site a name" }).max(120, { message: "At most 120 characters" });
+const siteCity = z.string().trim().max(120, { message: "At most 120 characters" });
+
+export const createSiteSchema = z.object({ name: siteName, city: siteCity.default("") });
 export type CreateSiteInput = z.infer<typeof createSiteSchema>;
-export const updateSiteSchema = createSiteSchema.partial();
+/** PATCH: only the fields sent change. */
+export const updateSiteSchema = z.object({ name: siteName, city: siteCity }).partial();
 export type UpdateSiteInput = z.infer<typeof updateSiteSchema>;

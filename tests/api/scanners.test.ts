@@ -213,11 +213,7 @@ describe("PATCH and DELETE /api/scanners/{id}", () => {
     expect((await list(second.token, true)).some((s) => s.id === id)).toBe(true);
   });
 
-  // KNOWN BUG (lib/validations/scanner.ts): updateScannerSchema = createScannerSchema.partial(), and zod 4 still applies
-  // `.default()` inside `.partial()`, so a PATCH that omits manufacturer, model, serialNumber, engineerIds or
-  // alertOnWarning resets them to "", [] and false. `it.fails` keeps the suite green while the bug exists;
-  // turn it into `it` once the update schema stops inheriting the defaults.
-  it.fails("PATCH /api/scanners/{id} with one field leaves the other fields and the engineer list unchanged", async () => {
+  it("PATCH /api/scanners/{id} with one field leaves the other fields and the engineer list unchanged", async () => {
     const id = await createOk({ engineerIds: [engineer.id], alertOnWarning: true });
     const res = await patchScanner(apiRequest(`/api/scanners/${id}`, { method: "PATCH", token: admin.token, body: { location: "Room 12" } }), routeParams(id));
     expect(res.status).toBe(200);

@@ -117,10 +117,7 @@ describe("PATCH and DELETE /api/sites/{id}", () => {
     expect(row?.name).toBe(site.name);
   });
 
-  // KNOWN BUG (lib/validations/site.ts): updateSiteSchema = createSiteSchema.partial(), and zod 4 still applies
-  // `city`'s `.default("")` inside `.partial()`, so renaming without sending the city empties it. `it.fails` keeps the
-  // suite green while the bug exists; turn it into `it` once the update schema stops inheriting the default.
-  it.fails("PATCH /api/sites/{id} with only a name keeps the city", async () => {
+  it("PATCH /api/sites/{id} with only a name keeps the city", async () => {
     const site = await createTestSite();
     const res = await patchSite(apiRequest(`/api/sites/${site.id}`, { method: "PATCH", token: admin.token, body: { name: unique("Renamed") } }), routeParams(site.id));
     expect(res.status).toBe(200);

@@ -16,7 +16,7 @@ async function freshDatabase(cfg, env) {
 
 async function main() {
   ensureNodeModules();
-  ensureDebianPackages(["chromium", "python3-pydicom", "poppler-utils"], "the test suites (browser tests; reference DICOM files; PDF text via pdftotext)");
+  ensureDebianPackages(["chromium", "python3-pydicom", "python3-numpy", "python3-pil", "poppler-utils"], "the test suites (browser tests; reference DICOM files; PDF text via pdftotext)");
   const cfg = resolveConfig("test");
   const env = { ...cfg.runtimeEnv, CI: process.env.CI ?? "" };
   await startDatabase(cfg);

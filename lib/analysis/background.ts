@@ -5,6 +5,7 @@
  * (Hampel 1974; Rousseeuw & Croux, JASA 1993).
  */
 import { AnalysisError } from "./errors";
+import { medianInPlace } from "./order-statistics";
 import type { GrayImage, Roi } from "./types";
 
 export type BackgroundEstimator = "mean" | "median";
@@ -113,42 +114,4 @@ function collectBorder(image: GrayImage, roi: Roi, b: number, sides: BorderSides
     if (sides.right) for (let col = roi.width - b; col < roi.width; col++) out[count++] = image.data[offset + col]!;
   }
   return out.subarray(0, count);
-}
-
-/** Median of `values` by quickselect (Hoare, CACM 1961), O(n); reorders the array in place. */
-function medianInPlace(values: Float64Array): number {
-  const n = values.length;
-  const mid = n >> 1;
-  const upper = selectInPlace(values, mid);
-  if (n % 2 === 1) return upper;
-  // After selection every value left of `mid` is ≤ values[mid]: the lower middle is their maximum.
-  let lower = -Infinity;
-  for (let i = 0; i < mid; i++) if (values[i]! > lower) lower = values[i]!;
-  return 0.5 * (lower + upper);
-}
-
-/** k-th smallest value (0-based); partially orders the array in place. */
-function selectInPlace(values: Float64Array, k: number): number {
-  let lo = 0;
-  let hi = values.length - 1;
-  while (lo < hi) {
-    const pivot = values[(lo + hi) >> 1]!;
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (values[i]! < pivot) i++;
-      while (values[j]! > pivot) j--;
-      if (i <= j) {
-        const t = values[i]!;
-        values[i] = values[j]!;
-        values[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else break;
-  }
-  return values[k]!;
 }

@@ -3,14 +3,17 @@
  * 1. start from the object region (object-region.ts): centroid and equal-area radius R₀;
  * 2. plateau levels: median of raw pixels within 0.5 R₀ of the centre (inside) and in a ring beyond the rim (outside);
  * 3. edge points: along N rays from the centre (N ≈ 2πR₀ in pixels, 32 … 360), the crossing of the mid level in the
- *    5 × 5 box-smoothed image (bilinear samples every ¼ pixel, the crossing nearest to the current radius); the
- *    smoothing is symmetric, so it moves the crossings radially but not the centre;
+ *    5 × 5 box-smoothed image (bilinear samples every ¼ pixel from 0.5 R to 1.5 R, the falling crossing nearest to the
+ *    current radius, searched outwards from it: ray-crossing.ts); the smoothing is symmetric, so it moves the
+ *    crossings radially but not the centre;
  * 4. algebraic least-squares circle fit (Kåsa, IEEE Trans Instrum Meas 1976): x² + y² + Dx + Ey + F = 0, linear in
  *    D, E, F; repeated once from the new centre.
  * Coordinates in mm from the centre of pixel (0, 0) (x = column·pₓ, y = row·p_y), so non-square pixels are handled.
  */
 import { AnalysisError } from "./errors";
 import type { ObjectRegion } from "./object-region";
+import { upperMedianInPlace } from "./order-statistics";
+import { nearestFallingCrossing, rayRadii } from "./ray-crossing";
 import type { GrayImage } from "./types";
 
 export interface LocatedDisk {
@@ -114,21 +117,12 @@ export function locateDisk(image: GrayImage, region: ObjectRegion): LocatedDisk 
   let found = 0;
   for (let pass = 0; pass < DISK_LOCATE_DEFAULTS.fitPasses; pass++) {
     found = 0;
+    const radii = rayRadii(0.5 * radius, 1.5 * radius, stepMm);
     for (let k = 0; k < rays; k++) {
       const theta = (2 * Math.PI * k) / rays;
       const ux = Math.cos(theta);
       const uy = Math.sin(theta);
-      let best = NaN;
-      let previous = NaN;
-      for (let r = 0.5 * radius; r <= 1.5 * radius + stepMm; r += stepMm) {
-        const value = sign * (smoothedAt(cx + r * ux, cy + r * uy) - mid);
-        if (Number.isNaN(value)) break;
-        if (previous > 0 && value <= 0) {
-          const crossing = r - stepMm + (stepMm * previous) / (previous - value);
-          if (Number.isNaN(best) || Math.abs(crossing - radius) < Math.abs(best - radius)) best = crossing;
-        }
-        previous = value;
-      }
+      const best = nearestFallingCrossing((j) => sign * (smoothedAt(cx + radii[j]! * ux, cy + radii[j]! * uy) - mid), radii, stepMm, radius);
       if (Number.isNaN(best)) continue;
       xs[found] = cx + best * ux;
       ys[found] = cy + best * uy;
@@ -143,21 +137,24 @@ export function locateDisk(image: GrayImage, region: ObjectRegion): LocatedDisk 
   return { centreXMm: cx, centreYMm: cy, radiusMm: radius, insideValue, outsideValue, fitRmsMm: fit.rms, edgePoints: found, rays };
 }
 
-/** Median of the raw pixels of the ROI whose centres lie at distance [r0, r1] mm from (cx, cy) mm; null if none. */
+/** Upper median of the raw pixels of the ROI whose centres lie at distance [r0, r1] mm from (cx, cy) mm; null if none. */
 export function medianInRing(image: GrayImage, roi: { x: number; y: number; width: number; height: number }, cx: number, cy: number, r0: number, r1: number): number | null {
   const { x: px, y: py } = image.pixelSpacingMm;
-  const values: number[] = [];
   const yLo = Math.max(roi.y, Math.ceil((cy - r1) / py));
   const yHi = Math.min(roi.y + roi.height - 1, Math.floor((cy + r1) / py));
   const xLo = Math.max(roi.x, Math.ceil((cx - r1) / px));
   const xHi = Math.min(roi.x + roi.width - 1, Math.floor((cx + r1) / px));
+  if (yHi < yLo || xHi < xLo) return null;
+  const values = new Float64Array((yHi - yLo + 1) * (xHi - xLo + 1));
+  let count = 0;
   for (let y = yLo; y <= yHi; y++) {
+    const dy = y * py - cy;
+    const row = y * image.width;
     for (let x = xLo; x <= xHi; x++) {
-      const r = Math.hypot(x * px - cx, y * py - cy);
-      if (r >= r0 && r <= r1) values.push(image.data[y * image.width + x]!);
+      const dx = x * px - cx;
+      const r = Math.sqrt(dx * dx + dy * dy);
+      if (r >= r0 && r <= r1) values[count++] = image.data[row + x]!;
     }
   }
-  if (values.length === 0) return null;
-  values.sort((a, b) => a - b);
-  return values[values.length >> 1]!;
+  return count === 0 ? null : upperMedianInPlace(values.subarray(0, count));
 }

@@ -12,6 +12,7 @@
  */
 import { measureBackground } from "./background";
 import { AnalysisError } from "./errors";
+import { upperMedianInPlace } from "./order-statistics";
 import type { GrayImage, Roi } from "./types";
 
 export interface ObjectRegion {
@@ -85,6 +86,8 @@ export function findObjectRegion(image: GrayImage, roi: Roi = { x: 0, y: 0, widt
   let area = 0;
   let sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0;
   let touches = false;
+  // Depth-first flood fill; the four neighbours are tested inline (no closure per pixel in this hot loop).
+  const above = (j: number): boolean => !inRegion[j] && polarity * (smoothed[j]! - bg.level) > threshold;
   while (top > 0) {
     const i = stack[--top]!;
     const x = i % w;
@@ -92,16 +95,10 @@ export function findObjectRegion(image: GrayImage, roi: Roi = { x: 0, y: 0, widt
     area++;
     sx += x; sy += y; sxx += x * x; syy += y * y; sxy += x * y;
     if (x === 0 || y === 0 || x === w - 1 || y === h - 1) touches = true;
-    const visit = (j: number): void => {
-      if (!inRegion[j] && polarity * (smoothed[j]! - bg.level) > threshold) {
-        inRegion[j] = 1;
-        stack[top++] = j;
-      }
-    };
-    if (x > 0) visit(i - 1);
-    if (x < w - 1) visit(i + 1);
-    if (y > 0) visit(i - w);
-    if (y < h - 1) visit(i + w);
+    if (x > 0 && above(i - 1)) { inRegion[i - 1] = 1; stack[top++] = i - 1; }
+    if (x < w - 1 && above(i + 1)) { inRegion[i + 1] = 1; stack[top++] = i + 1; }
+    if (y > 0 && above(i - w)) { inRegion[i - w] = 1; stack[top++] = i - w; }
+    if (y < h - 1 && above(i + w)) { inRegion[i + w] = 1; stack[top++] = i + w; }
   }
   const cx = sx / area;
   const cy = sy / area;
@@ -140,23 +137,21 @@ export function findObjectRegion(image: GrayImage, roi: Roi = { x: 0, y: 0, widt
 function flatness(image: GrayImage, roi: Roi, inRegion: Uint8Array, cx: number, cy: number, radius: number, level: number, polarity: 1 | -1): number {
   const w = roi.width;
   const step = Math.max(1, Math.floor(inRegion.length / 65536));
-  const all: number[] = [];
-  const core: number[] = [];
+  const all = new Float64Array(Math.ceil(inRegion.length / step));
+  const core = new Float64Array(inRegion.length);
+  let allCount = 0;
+  let coreCount = 0;
   const coreRadius = Math.max(0.75, 0.3 * radius);
   for (let i = 0; i < inRegion.length; i++) {
     if (!inRegion[i]) continue;
     const x = i % w;
     const y = (i - x) / w;
     const d = polarity * (image.data[(roi.y + y) * image.width + roi.x + x]! - level);
-    if (i % step === 0) all.push(d);
-    if (Math.hypot(x - cx, y - cy) <= coreRadius) core.push(d);
+    if (i % step === 0) all[allCount++] = d;
+    if ((x - cx) ** 2 + (y - cy) ** 2 <= coreRadius * coreRadius) core[coreCount++] = d;
   }
-  const median = (v: number[]): number => {
-    v.sort((a, b) => a - b);
-    return v.length === 0 ? NaN : v[v.length >> 1]!;
-  };
-  const coreMedian = median(core);
-  return coreMedian > 0 ? median(all) / coreMedian : NaN;
+  const coreMedian = upperMedianInPlace(core.subarray(0, coreCount));
+  return coreMedian > 0 ? upperMedianInPlace(all.subarray(0, allCount)) / coreMedian : NaN;
 }
 
 /** k × k moving average (k odd) of the ROI, clipped and renormalised at the ROI border; separable running sums. */

@@ -137,7 +137,7 @@ export function analyseLineSource(image: GrayImage, options: { roi?: Roi } = {})
   // Phase-aligned sum of the line spectra (see header, step 5).
   const n = nextPowerOfTwo(Math.max(2 * acrossCount, settings.minFftSize));
   const plan = fftPlan(n);
-  const input = new Float64Array(2 * n);
+  const input = new Float64Array(n);
   const output = new Float64Array(2 * n);
   const sum = new Float64Array(2 * n);
   const rampRe = new Float64Array(n / 2 + 1);
@@ -145,27 +145,26 @@ export function analyseLineSource(image: GrayImage, options: { roi?: Roi } = {})
   let minCentre = Infinity;
   let maxCentre = -Infinity;
   for (let a = first; a < first + linesUsed; a++) {
-    input.fill(0);
-    for (let c = 0; c < acrossCount; c++) input[2 * c] = view.value(a, c) - bg;
-    plan.transform(output, input);
+    for (let c = 0; c < acrossCount; c++) input[c] = view.value(a, c) - bg;
+    // Real input: fft.js fills bins 0 … n/2 only, which is all the sum needs (see below).
+    plan.realTransform(output, input);
     const centre = line.offset + line.slope * a;
     minCentre = Math.min(minCentre, centre);
     maxCentre = Math.max(maxCentre, centre);
     const shift = n / 2 - centre;
     phaseRamp(shift, n, rampRe, rampIm);
-    for (let k = 0; k < n; k++) {
+    for (let k = 0; k < n / 2; k++) {
       const re = output[2 * k]!;
       const im = output[2 * k + 1]!;
-      if (k === n / 2) {
-        sum[2 * k] += re * rampRe[k]!; // Nyquist bin: keep the shifted signal real (cos of the phase only)
-        continue;
-      }
-      // Negative frequencies k − n carry the conjugate factor of n − k.
-      const cos = k < n / 2 ? rampRe[k]! : rampRe[n - k]!;
-      const sin = k < n / 2 ? rampIm[k]! : -rampIm[n - k]!;
-      sum[2 * k] += re * cos - im * sin;
-      sum[2 * k + 1] += re * sin + im * cos;
+      sum[2 * k] += re * rampRe[k]! - im * rampIm[k]!;
+      sum[2 * k + 1] += re * rampIm[k]! + im * rampRe[k]!;
     }
+    sum[n] += output[n]! * rampRe[n / 2]!; // Nyquist bin: keep the shifted signal real (cos of the phase only)
+  }
+  // The shifted lines are real, so the negative frequencies k − n are the conjugates of n − k.
+  for (let k = n / 2 + 1; k < n; k++) {
+    sum[2 * k] = sum[2 * (n - k)]!;
+    sum[2 * k + 1] = -sum[2 * (n - k) + 1]!;
   }
   const dc = sum[0]!;
   if (!(dc > 0)) throw noLine(`the background-subtracted line integral is ${dc.toFixed(3)}, not positive`);

@@ -11,6 +11,7 @@
  *    is 1/√2 of the peak), → 1 for a disk with a sharp rim.
  */
 import { measureBackground } from "./background";
+import { boxSmooth } from "./box-smooth";
 import { AnalysisError } from "./errors";
 import { upperMedianInPlace } from "./order-statistics";
 import type { GrayImage, Roi } from "./types";
@@ -128,17 +129,17 @@ export function findObjectRegion(image: GrayImage, roi: Roi = { x: 0, y: 0, widt
     majorAxisDeg: majorAxisDeg <= -90 ? majorAxisDeg + 180 : majorAxisDeg,
     touchesRoiBorder: touches,
     roiFraction: area / (w * h),
-    flatness: flatness(image, roi, inRegion, cx, cy, radius, bg.level, polarity),
+    flatness: flatness(image, roi, inRegion, area, cx, cy, radius, bg.level, polarity),
     smoothed,
   };
 }
 
 /** Median raw deviation over the region / over its core (see file header); at most ~65 k region pixels are sampled. */
-function flatness(image: GrayImage, roi: Roi, inRegion: Uint8Array, cx: number, cy: number, radius: number, level: number, polarity: 1 | -1): number {
+function flatness(image: GrayImage, roi: Roi, inRegion: Uint8Array, area: number, cx: number, cy: number, radius: number, level: number, polarity: 1 | -1): number {
   const w = roi.width;
   const step = Math.max(1, Math.floor(inRegion.length / 65536));
-  const all = new Float64Array(Math.ceil(inRegion.length / step));
-  const core = new Float64Array(inRegion.length);
+  const all = new Float64Array(area);
+  const core = new Float64Array(area);
   let allCount = 0;
   let coreCount = 0;
   const coreRadius = Math.max(0.75, 0.3 * radius);
@@ -152,33 +153,4 @@ function flatness(image: GrayImage, roi: Roi, inRegion: Uint8Array, cx: number, 
   }
   const coreMedian = upperMedianInPlace(core.subarray(0, coreCount));
   return coreMedian > 0 ? upperMedianInPlace(all.subarray(0, allCount)) / coreMedian : NaN;
-}
-
-/** k × k moving average (k odd) of the ROI, clipped and renormalised at the ROI border; separable running sums. */
-export function boxSmooth(image: GrayImage, roi: Roi, k: number): Float64Array {
-  const w = roi.width;
-  const h = roi.height;
-  const r = k >> 1;
-  const rows = new Float64Array(w * h);
-  for (let y = 0; y < h; y++) {
-    const src = (roi.y + y) * image.width + roi.x;
-    const dst = y * w;
-    let sum = 0;
-    for (let x = 0; x < Math.min(r, w); x++) sum += image.data[src + x]!;
-    for (let x = 0; x < w; x++) {
-      if (x + r < w) sum += image.data[src + x + r]!;
-      if (x - r - 1 >= 0) sum -= image.data[src + x - r - 1]!;
-      rows[dst + x] = sum / (Math.min(w - 1, x + r) - Math.max(0, x - r) + 1);
-    }
-  }
-  const out = new Float64Array(w * h);
-  const column = new Float64Array(w);
-  for (let y = 0; y < Math.min(r, h); y++) for (let x = 0; x < w; x++) column[x] += rows[y * w + x]!;
-  for (let y = 0; y < h; y++) {
-    if (y + r < h) for (let x = 0; x < w; x++) column[x] += rows[(y + r) * w + x]!;
-    if (y - r - 1 >= 0) for (let x = 0; x < w; x++) column[x] -= rows[(y - r - 1) * w + x]!;
-    const count = Math.min(h - 1, y + r) - Math.max(0, y - r) + 1;
-    for (let x = 0; x < w; x++) out[y * w + x] = column[x]! / count;
-  }
-  return out;
 }

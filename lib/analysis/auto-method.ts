@@ -41,13 +41,20 @@ export interface MethodChoiceResult {
  * @throws AnalysisError when the image is smaller than 9 × 9 or nothing stands out from the background
  */
 export function detectMethod(image: GrayImage): MethodChoiceResult {
+  return detectMethodAndRegion(image).choice;
+}
+
+/**
+ * {@link detectMethod}, also returning the object region it examined (null when the border test chose "edge"), so that
+ * a caller running the circular-edge method on the same pixels need not search for the object again.
+ * @throws as {@link detectMethod}
+ */
+export function detectMethodAndRegion(image: GrayImage): { choice: MethodChoiceResult; region: ObjectRegion | null } {
   const o = AUTO_METHOD_DEFAULTS;
   const border = borderSplit(image);
   if (border.iqr > o.edgeBorderIqrPerNoise * border.noiseSd && border.iqr > o.edgeBorderIqrPerRange * valueRange(image)) {
-    return {
-      method: "edge",
-      reason: `the image border splits into two levels (interquartile range ${border.iqr.toPrecision(3)}, ${border.noiseSd > 0 ? `${(border.iqr / border.noiseSd).toFixed(0)}× the noise` : "noiseless"}): two half-planes meet at an edge`,
-    };
+    const reason = `the image border splits into two levels (interquartile range ${border.iqr.toPrecision(3)}, ${border.noiseSd > 0 ? `${(border.iqr / border.noiseSd).toFixed(0)}× the noise` : "noiseless"}): two half-planes meet at an edge`;
+    return { choice: { method: "edge", reason }, region: null };
   }
   let region: ObjectRegion;
   try {
@@ -56,6 +63,12 @@ export function detectMethod(image: GrayImage): MethodChoiceResult {
     if (error instanceof AnalysisError) throw new AnalysisError(`cannot choose a method: ${error.message}`, "no_object");
     throw error;
   }
+  return { choice: chooseFromRegion(region), region };
+}
+
+/** Step 2 of {@link detectMethod}: the method suggested by the shape of the most conspicuous object. */
+function chooseFromRegion(region: ObjectRegion): MethodChoiceResult {
+  const o = AUTO_METHOD_DEFAULTS;
   const shape = `axis ratio ${region.axisRatio.toFixed(1)}, radius ${region.equalAreaRadiusPx.toFixed(1)} px, flatness ${region.flatness.toFixed(2)}`;
   if (region.axisRatio >= o.lineAxisRatio) {
     return { method: "line", reason: `the object is an elongated ridge (${shape})` };
@@ -89,8 +102,9 @@ function borderSplit(image: GrayImage): { iqr: number; noiseSd: number } {
   for (let y = 1; y < h; y++) ring.push(data[y * w + w - 1]!);
   for (let x = w - 2; x >= 0; x--) ring.push(data[(h - 1) * w + x]!);
   for (let y = h - 2; y >= 1; y--) ring.push(data[y * w]!);
-  const diffs = ring.map((v, i) => Math.abs(v - ring[(i + 1) % ring.length]!)).sort((a, b) => a - b);
-  const sorted = ring.slice().sort((a, b) => a - b);
+  // Float64Array sorts numerically without a comparator callback.
+  const diffs = Float64Array.from(ring, (v, i) => Math.abs(v - ring[(i + 1) % ring.length]!)).sort();
+  const sorted = Float64Array.from(ring).sort();
   const quantile = (q: number): number => sorted[Math.round(q * (sorted.length - 1))]!;
   return { iqr: quantile(0.75) - quantile(0.25), noiseSd: (1.482602218505602 * diffs[diffs.length >> 1]!) / Math.SQRT2 };
 }

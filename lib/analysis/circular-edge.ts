@@ -16,7 +16,7 @@ import { EDGE_SPREAD_DEFAULTS, EsfAccumulator, esfToMtf, meanOver, mtfNoiseSd, t
 import { AnalysisError } from "./errors";
 import { lsfWidths } from "./lsf-widths";
 import { summariseMtf } from "./mtf-metrics";
-import { findObjectRegion } from "./object-region";
+import { findObjectRegion, type ObjectRegion } from "./object-region";
 import { ANALYSIS_VERSION, type AnalysisResult, type AnalysisWarning, type GrayImage, type Roi } from "./types";
 
 /** Defaults of {@link analyseCircularEdge}. */
@@ -49,28 +49,30 @@ export const CIRCULAR_EDGE_DEFAULTS = {
 export interface CircularEdgeOptions {
   /** Region containing one insert with a margin of background; default the whole image. */
   roi?: Roi;
+  /**
+   * The object region already found by findObjectRegion(image, roi) (e.g. during the automatic method choice); the
+   * search is then skipped. Its roi must equal the ROI analysed.
+   */
+  region?: ObjectRegion;
 }
 
 /**
  * Circular-edge MTF of a disk insert (see file header).
  * @param image row-major frame, values linear (e.g. HU), insert brighter or darker than its surroundings.
+ * @param options ROI and, optionally, the object region already found in it (see {@link CircularEdgeOptions}).
  * @returns method "disk": radial MTF (0 … 2 × Nyquist, cycles/mm, 1 at 0) with nyquist = 1/(2p) for the coarser pitch
  *   p, MTF50/MTF10/MTF(Nyquist), FWHM/FWTM of the radial LSF (mm), spread curves "esf" (pixel values) and "lsf" (unit
  *   area, 1/mm) on the "radial" axis, details (centre in pixels, radius in mm, inside/outside values, contrast…).
- * @throws AnalysisError when the ROI is invalid or no disk is found (nothing stands out, the object reaches the ROI
- *   border, is elongated, smaller than minRadiusPx or not flat inside), or the rim is too close to the ROI border.
+ * @throws AnalysisError when the ROI is invalid, a region found in another ROI is passed in, or no disk is found
+ *   (nothing stands out, the object reaches the ROI border, is elongated, smaller than minRadiusPx or not flat
+ *   inside), or the rim is too close to the ROI border.
  */
 export function analyseCircularEdge(image: GrayImage, options: CircularEdgeOptions = {}): AnalysisResult {
   const o = CIRCULAR_EDGE_DEFAULTS;
   const roi = options.roi ?? { x: 0, y: 0, width: image.width, height: image.height };
   assertRoiInImage(image, roi);
-  let region;
-  try {
-    region = findObjectRegion(image, roi);
-  } catch (error) {
-    if (error instanceof AnalysisError) throw new AnalysisError(`no disk found: ${error.message}`, "no_disk");
-    throw error;
-  }
+  const region = options.region ?? findDiskRegion(image, roi);
+  if (!sameRoi(region.roi, roi)) throw new AnalysisError("the object region passed in was found in another ROI than the one analysed");
   const reject = (why: string): never => {
     throw new AnalysisError(`no disk found: ${why}`, "no_disk");
   };
@@ -221,6 +223,19 @@ export function analyseCircularEdge(image: GrayImage, options: CircularEdgeOptio
       fftLength: chain.fftLength,
     },
   };
+}
+
+function findDiskRegion(image: GrayImage, roi: Roi): ObjectRegion {
+  try {
+    return findObjectRegion(image, roi);
+  } catch (error) {
+    if (error instanceof AnalysisError) throw new AnalysisError(`no disk found: ${error.message}`, "no_disk");
+    throw error;
+  }
+}
+
+function sameRoi(a: Roi, b: Roi): boolean {
+  return a.x === b.x && a.y === b.y && a.width === b.width && a.height === b.height;
 }
 
 /** Position (mm) where the ESF crosses `level`, nearest to 0, interpolated linearly; 0 when it never does. */

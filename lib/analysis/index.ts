@@ -2,9 +2,10 @@
  * Public entry of the Halfmax numerical core: types, errors, the four methods and {@link analyse}, which validates the
  * input once and dispatches on the method (choosing it from the image content when asked for "auto").
  */
-import { detectMethod } from "./auto-method";
+import { detectMethodAndRegion } from "./auto-method";
 import { analyseCircularEdge } from "./circular-edge";
 import { AnalysisError } from "./errors";
+import { regionInFrame } from "./object-region";
 import { analyseLineSource } from "./line-source";
 import { analysePointSource } from "./point-source";
 import { analyseSlantedEdge } from "./slanted-edge";
@@ -57,8 +58,12 @@ export function analyse(image: GrayImage, options: AnalysisOptions = {}): Analys
     const result = RUNNERS[choice](image, methodOptions);
     return { ...result, details: { ...result.details, methodChoice: "requested" } };
   }
-  const detected = detectMethod(options.roi ? cropImage(image, options.roi) : image);
-  const result = RUNNERS[detected.method](image, methodOptions);
+  const { choice: detected, region } = detectMethodAndRegion(options.roi ? cropImage(image, options.roi) : image);
+  // The disk method starts from the object region the choice was based on instead of searching for it again.
+  const result =
+    detected.method === "disk" && region
+      ? analyseCircularEdge(image, { ...methodOptions, region: options.roi ? regionInFrame(region, options.roi) : region })
+      : RUNNERS[detected.method](image, methodOptions);
   return { ...result, details: { ...result.details, methodChoice: "auto", autoMethodReason: detected.reason } };
 }
 

@@ -154,3 +154,25 @@ function flatness(image: GrayImage, roi: Roi, inRegion: Uint8Array, area: number
   const coreMedian = upperMedianInPlace(core.subarray(0, coreCount));
   return coreMedian > 0 ? upperMedianInPlace(all.subarray(0, allCount)) / coreMedian : NaN;
 }
+
+/**
+ * A region found by {@link findObjectRegion} in a crop of the frame (its whole ROI being the crop), re-expressed in
+ * frame coordinates for the crop's position `roi`: the same numbers {@link findObjectRegion}(frame, roi) gives.
+ * @throws AnalysisError when `roi` is not the size of the crop the region was found in
+ */
+export function regionInFrame(region: ObjectRegion, roi: Roi): ObjectRegion {
+  const crop = region.roi;
+  if (crop.x !== 0 || crop.y !== 0 || crop.width !== roi.width || crop.height !== roi.height) {
+    throw new AnalysisError(
+      `object region of a ${crop.width}×${crop.height} crop at (${crop.x}, ${crop.y}) cannot be placed as the ${roi.width}×${roi.height} ROI at (${roi.x}, ${roi.y})`,
+    );
+  }
+  return {
+    ...region,
+    roi,
+    seedXPx: roi.x + region.seedXPx,
+    seedYPx: roi.y + region.seedYPx,
+    centroidXPx: roi.x + region.centroidXPx,
+    centroidYPx: roi.y + region.centroidYPx,
+  };
+}

@@ -70,6 +70,8 @@ function buildCases(): BenchCase[] {
     { name: "decode DICOM 3000×3000 16-bit", targetMs: 60, run: () => decodeImage(dicom) },
     { name: "point 512×512", targetMs: 20, run: () => analyse(point, { method: "point" }) },
     { name: "disk 512×512", targetMs: 20, run: () => analyse(disk, { method: "disk" }) },
+    // Uploads default to "auto": method choice plus the disk method (the object search runs once).
+    { name: "disk 512×512, auto", targetMs: null, run: () => analyse(disk) },
     { name: "edge 2048×2048", targetMs: 150, run: () => analyse(edge, { method: "edge" }) },
     { name: "line 512×512", targetMs: null, run: () => analyse(line, { method: "line" }) },
   ];

@@ -5,8 +5,8 @@
 import { detectMethodAndRegion } from "./auto-method";
 import { analyseCircularEdge } from "./circular-edge";
 import { AnalysisError } from "./errors";
-import { regionInFrame } from "./object-region";
 import { analyseLineSource } from "./line-source";
+import { regionInFrame } from "./object-region";
 import { analysePointSource } from "./point-source";
 import { analyseSlantedEdge } from "./slanted-edge";
 import { ANALYSIS_METHODS, type AnalysisMethod, type AnalysisOptions, type AnalysisResult, type GrayImage, type Roi } from "./types";

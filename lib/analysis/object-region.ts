@@ -87,7 +87,7 @@ export function findObjectRegion(image: GrayImage, roi: Roi = { x: 0, y: 0, widt
   let area = 0;
   let sx = 0, sy = 0, sxx = 0, syy = 0, sxy = 0;
   let touches = false;
-  // Depth-first flood fill; the four neighbours are tested inline (no closure per pixel in this hot loop).
+  // Depth-first flood fill over every region pixel: the neighbour test is created once, not once per pixel.
   const above = (j: number): boolean => !inRegion[j] && polarity * (smoothed[j]! - bg.level) > threshold;
   while (top > 0) {
     const i = stack[--top]!;

@@ -1,8 +1,9 @@
 import { existsSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { Worker } from "node:worker_threads";
+import type { Worker as WorkerType } from "node:worker_threads";
 import type { Job, JobOutput } from "./analysis-job";
+import { projectRoot } from "./project-root";
 import { JobError, type SerialisedJobError } from "./job-errors";
 
 /**
@@ -13,13 +14,22 @@ const JOB_TIMEOUT_MS = 120_000;
 
 type Pending = { resolve: (o: JobOutput) => void; reject: (e: Error) => void; timer: NodeJS.Timeout };
 interface Slot {
-  worker: Worker;
+  worker: WorkerType;
   busy: boolean;
   current: { id: number; pending: Pending } | null;
 }
 
+/**
+ * The Worker constructor, fetched at run time: bundlers treat a literal `new Worker(path)` as a bundling entry point
+ * and try to pull the project into the server bundle. The worker code is bundled separately (scripts/build-worker.mjs).
+ */
+function workerConstructor(): typeof WorkerType {
+  const threads = (process as unknown as { getBuiltinModule(id: string): typeof import("node:worker_threads") }).getBuiltinModule("node:worker_threads");
+  return threads.Worker;
+}
+
 function workerPath(): string {
-  const p = process.env.HALFMAX_WORKER_PATH ?? path.join(process.cwd(), "dist", "analysis-worker.mjs");
+  const p = process.env.HALFMAX_WORKER_PATH ?? path.join(projectRoot(), "dist", "analysis-worker.mjs");
   if (!existsSync(p)) throw new Error(`analysis worker bundle not found at ${p}: run "npm run build:worker"`);
   return p;
 }
@@ -40,7 +50,8 @@ class WorkerPool {
   }
 
   private spawn(): Slot {
-    const slot: Slot = { worker: new Worker(workerPath()), busy: false, current: null };
+    const WorkerCtor = workerConstructor();
+    const slot: Slot = { worker: new WorkerCtor(workerPath()), busy: false, current: null };
     slot.worker.unref();
     slot.worker.on("message", (msg: { id: number; ok: boolean; output?: JobOutput; error?: SerialisedJobError }) => {
       const cur = slot.current;

@@ -66,6 +66,16 @@ export const pathIdSchema = z.coerce
 export type FieldDoc = string | ZodOpenAPIMetadata;
 
 /**
+ * Attach OpenAPI documentation to a schema that may come from another module (lib/validations). When the bundler
+ * gives that module its own copy of zod, the `.openapi()` extension is missing there; zod's own `.meta()` carries
+ * the same keywords and the generator reads both.
+ */
+export function withDoc<T extends z.ZodType>(schema: T, doc: ZodOpenAPIMetadata): T {
+  const extended = schema as T & { openapi?: (d: ZodOpenAPIMetadata) => T };
+  return typeof extended.openapi === "function" ? extended.openapi(doc) : (schema.meta(doc as Record<string, unknown>) as T);
+}
+
+/**
  * The same object schema with descriptions (or other OpenAPI keywords) attached to some fields. Validation is
  * unchanged: each field keeps its own zod schema, only documentation metadata is added.
  */
@@ -77,7 +87,7 @@ export function documentFields<Shape extends z.ZodRawShape>(
   for (const [key, doc] of Object.entries(docs) as [string, FieldDoc | undefined][]) {
     const field = schema.shape[key] as z.ZodType | undefined;
     if (!field) throw new Error(`documentFields: the schema has no field "${key}"`);
-    if (doc !== undefined) documented[key] = field.openapi(typeof doc === "string" ? { description: doc } : doc);
+    if (doc !== undefined) documented[key] = withDoc(field, typeof doc === "string" ? { description: doc } : doc);
   }
   return schema.extend(documented) as unknown as z.ZodObject<Shape>;
 }

@@ -1,6 +1,7 @@
 import { createHash, randomBytes } from "node:crypto";
 import { mkdir, readFile, rename, rm, stat, writeFile } from "node:fs/promises";
 import path from "node:path";
+import { projectRoot } from "@/lib/jobs/project-root";
 
 /**
  * Where original uploads live. Keys are content addresses (sha256 hex), so the same bytes are stored once.
@@ -61,7 +62,7 @@ let instance: FileStorage | null = null;
 /** The configured storage (STORAGE_DIR; filesystem driver). */
 export function storage(): FileStorage {
   if (!instance) {
-    const root = process.env.STORAGE_DIR ?? path.join(process.cwd(), ".data", "dev", "storage");
+    const root = process.env.STORAGE_DIR ?? path.join(projectRoot(), ".data", "dev", "storage");
     instance = new FsStorage(path.resolve(root));
   }
   return instance;

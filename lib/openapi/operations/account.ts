@@ -2,7 +2,7 @@
 import { MAIL_PREFERENCES } from "@/db/schema";
 import { createTokenSchema, passwordSchema } from "@/lib/validations/user";
 import type { ApiOperation } from "../operation";
-import { documentFields, z } from "../registry";
+import { documentFields, withDoc, z } from "../registry";
 import {
   apiTokenSchema,
   createdApiTokenSchema,
@@ -20,7 +20,7 @@ import {
 const passwordResetBody = z.object({ email: z.email().openapi({ description: "The account's e-mail address" }) });
 const passwordSetBody = z.object({
   token: z.string().min(10).openapi({ description: "The token from the invitation or reset link" }),
-  password: passwordSchema.openapi({ description: "The new password" }),
+  password: withDoc(passwordSchema, { description: "The new password" }),
 });
 const mailPreferenceBody = z.object({
   mailPreference: z.enum(MAIL_PREFERENCES).openapi({ description: "immediate: one e-mail per alert; digest: one a day; off: none" }),

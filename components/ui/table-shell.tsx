@@ -23,7 +23,7 @@ export function Table({ caption, captionHidden = false, density = "comfortable",
   return (
     <div
       // Current Chromium and Firefox make an overflowing scroller keyboard-focusable by themselves.
-      className={cn("w-full overflow-x-auto", wrapperClassName)}
+      className={cn("relative w-full overflow-x-auto", wrapperClassName)}
       data-density={density}
     >
       <table {...rest} className={cn("group/table w-full border-collapse text-left text-body", className)} data-density={density}>

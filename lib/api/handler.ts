@@ -34,6 +34,17 @@ export async function readJson(req: Request): Promise<unknown> {
   }
 }
 
+/** Parse a JSON body that may be absent (empty → {}), answering 400 when it is present but not JSON. */
+export async function readOptionalJson(req: Request): Promise<unknown> {
+  const text = await req.text();
+  if (text.trim() === "") return {};
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError({ code: "bad_request", message: "Request body must be JSON" });
+  }
+}
+
 /** Parse a positive integer route id, 404 otherwise. */
 export function parseId(raw: string | undefined, what: string): number {
   const n = Number(raw);

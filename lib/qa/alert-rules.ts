@@ -6,7 +6,9 @@
  * 1. A result at action level opens an alert with cause "action".
  * 2. A result at warning level opens one with cause "warning" only if the scanner's alertOnWarning is true.
  * 3. An overdue test opens an "overdue" alert.
- * 4. A control-limit drift flag on the bad side opens an advisory with cause "drift".
+ * 4. A control-limit drift flag on the bad side opens an advisory with cause "drift" — unless the same result
+ *    raises an action or warning alert: the advisory warns of drift *before* failure, and one e-mail per result is
+ *    enough.
  * 5. One open alert per scanner × test × cause: when one is already open, the repeat updates it (the caller bumps
  *    its count and latest value) instead of opening another.
  * 6. A passing re-test proposes resolution of the open "action" and "warning" alerts of that scanner × test;
@@ -27,7 +29,7 @@ export const ALERT_RULES: readonly string[] = [
   "a result at action level opens an alert (cause 'action')",
   "a result at warning level opens an alert (cause 'warning') only if the scanner's alertOnWarning is true",
   "an overdue test opens an alert (cause 'overdue')",
-  "a control-limit drift flag on the bad side opens an advisory (cause 'drift')",
+  "a control-limit drift flag on the bad side opens an advisory (cause 'drift') unless the same result raises an action or warning alert",
   "one open alert per scanner × test × cause: a repeat updates it rather than opening another",
   "a passing re-test proposes resolution of open 'action'/'warning' alerts of that scanner × test; any new result proposes resolution of its 'overdue' alert",
 ];
@@ -111,7 +113,8 @@ export function planAlertChanges(input: AlertPlanInput): AlertPlan {
   if (input.status === "action") raise("action");
   if (input.status === "warning" && input.alertOnWarning) raise("warning");
   if (input.dueState === "overdue" && input.resultId === null) raise("overdue");
-  if (badFlags.length > 0) raise("drift");
+  const failureRaised = input.status === "action" || (input.status === "warning" && input.alertOnWarning);
+  if (badFlags.length > 0 && !failureRaised) raise("drift");
 
   if (input.status === "pass") {
     for (const a of active) {

@@ -100,10 +100,17 @@ describe("planAlertChanges", () => {
     }
   });
 
-  it("planAlertChanges(action with a bad drift flag) opens both causes, each once", () => {
+  it("planAlertChanges(action with a bad drift flag) raises only the action alert (drift is advisory before failure)", () => {
     const plan = planAlertChanges(input({ status: "action", driftFlags: [flag(true)], openAlerts: [alert(9, "drift")] }));
     expect(plan.open.map((o) => o.cause)).toEqual(["action"]);
-    expect(plan.update.map((u) => u.cause)).toEqual(["drift"]);
+    expect(plan.update).toEqual([]);
+    const none = planAlertChanges(input({ status: "action", driftFlags: [flag(true)] }));
+    expect(none.open.map((o) => o.cause)).toEqual(["action"]);
+  });
+
+  it("planAlertChanges(warning with a bad drift flag) opens the drift advisory when warnings do not alert", () => {
+    expect(planAlertChanges(input({ status: "warning", alertOnWarning: false, driftFlags: [flag(true)] })).open.map((o) => o.cause)).toEqual(["drift"]);
+    expect(planAlertChanges(input({ status: "warning", alertOnWarning: true, driftFlags: [flag(true)] })).open.map((o) => o.cause)).toEqual(["warning"]);
   });
 });
 

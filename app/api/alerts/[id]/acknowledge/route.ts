@@ -1,5 +1,5 @@
 import { acknowledgeAlert, getAlertDetail } from "@/db/queries/alert-workflow";
-import { parseId, readJson, withUser } from "@/lib/api/handler";
+import { parseId, readOptionalJson, withUser } from "@/lib/api/handler";
 import { acknowledgeAlertSchema } from "@/lib/validations/alert";
 
 export const dynamic = "force-dynamic";
@@ -7,8 +7,7 @@ export const dynamic = "force-dynamic";
 // POST /api/alerts/{id}/acknowledge – the engineer (or physicist) takes the alert ({ note? })
 export const POST = withUser<{ id: string }>("acknowledgeAlerts", async ({ req, user, params }) => {
   const id = parseId(params.id, "Alert");
-  const hasBody = (req.headers.get("content-length") ?? "0") !== "0";
-  const { note } = acknowledgeAlertSchema.parse(hasBody ? await readJson(req) : {});
+  const { note } = acknowledgeAlertSchema.parse(await readOptionalJson(req));
   await acknowledgeAlert(id, user, note);
   return Response.json({ alert: await getAlertDetail(id, user) });
 });

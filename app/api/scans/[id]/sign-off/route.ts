@@ -1,5 +1,5 @@
 import { getScanDetail, signOffScan } from "@/db/queries/scans";
-import { parseId, readJson, withUser } from "@/lib/api/handler";
+import { parseId, readOptionalJson, withUser } from "@/lib/api/handler";
 import { scanToJson } from "@/lib/scans/scan-json";
 import { signOffSchema } from "@/lib/validations/scan";
 
@@ -8,8 +8,7 @@ export const dynamic = "force-dynamic";
 // POST /api/scans/{id}/sign-off – physicist signs off the current result ({ note? })
 export const POST = withUser<{ id: string }>("signOffScans", async ({ req, user, params }) => {
   const id = parseId(params.id, "Scan");
-  const hasBody = (req.headers.get("content-length") ?? "0") !== "0";
-  const { note } = signOffSchema.parse(hasBody ? await readJson(req) : {});
+  const { note } = signOffSchema.parse(await readOptionalJson(req));
   await signOffScan(id, user, note);
   return Response.json(scanToJson(await getScanDetail(id, user)));
 });

@@ -88,7 +88,7 @@ export function* demoScansFor(
   const rnd = createRandom(0x5eed + p.key.charCodeAt(0) * 31 + p.key.charCodeAt(p.key.length - 1));
   const lastWeek = weeks - 1 - (p.skipLastWeeks ?? 0);
   for (let week = 0; week <= lastWeek; week++) {
-    const acquiredAt = new Date(end.getTime() - (weeks - 1 - week) * 7 * 86_400_000 + Math.round(rnd.uniform() * 6) * 3_600_000);
+    const acquiredAt = new Date(end.getTime() - (weeks - 1 - week) * 7 * 86_400_000 - Math.round(rnd.uniform() * 6) * 3_600_000);
     const factor = p.sigmaFactor ? p.sigmaFactor(week, weeks) : 1;
     const sigmaMm = p.sigmaMm * factor * (1 + p.scatter * rnd.normal());
     const image = phantomImage(p, sigmaMm, 1000 * week + rnd.poisson(50));

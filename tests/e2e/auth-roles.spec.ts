@@ -44,6 +44,7 @@ test("an anonymous visitor is sent to the sign-in page, which lists the demo acc
 
 test("a wrong password is refused with a readable message", async ({ page }) => {
   await page.goto("/login");
+  await page.locator("form[data-hydrated='true']").waitFor();
   await page.getByLabel("E-mail").fill("lead@halfmax.test");
   await page.getByLabel("Password").fill("not-the-password");
   await page.getByRole("button", { name: "Sign in" }).click();

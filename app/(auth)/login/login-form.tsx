@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
 import { Button } from "@/components/ui/button";
@@ -20,6 +20,9 @@ type SignInInput = z.infer<typeof signInSchema>;
 export function LoginForm({ callbackUrl }: { callbackUrl: string }) {
   const router = useRouter();
   const [failure, setFailure] = useState<string | null>(null);
+  // Marks the form as interactive once React has hydrated it (used by the browser tests before they type).
+  const [hydrated, setHydrated] = useState(false);
+  useEffect(() => setHydrated(true), []);
   const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
 
   const onSubmit = handleSubmit(async (values) => {
@@ -34,7 +37,14 @@ export function LoginForm({ callbackUrl }: { callbackUrl: string }) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-describedby={failure ? "login-failure" : undefined}>
+    <form
+      onSubmit={onSubmit}
+      method="post"
+      noValidate
+      data-hydrated={hydrated ? "true" : undefined}
+      className="flex flex-col gap-4"
+      aria-describedby={failure ? "login-failure" : undefined}
+    >
       <Field label="E-mail" error={formState.errors.email?.message}>
         <Input type="email" autoComplete="username" autoFocus {...register("email")} />
       </Field>

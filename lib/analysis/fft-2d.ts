@@ -72,7 +72,8 @@ export function amplitudeSpectrum2d(image: GrayImage, padding: SpectrumPadding =
       columnIn[2 * y + 1] = work[2 * (y * nx + kx) + 1]!;
     }
     columnPlan.transform(columnOut, columnIn);
-    for (let ky = 0; ky < ny; ky++) magnitude[ky * nx + kx] = Math.hypot(columnOut[2 * ky]!, columnOut[2 * ky + 1]!);
+    // √(re² + im²) rather than Math.hypot, whose overflow guard costs about ten times more per bin.
+    for (let ky = 0; ky < ny; ky++) magnitude[ky * nx + kx] = Math.sqrt(columnOut[2 * ky]! ** 2 + columnOut[2 * ky + 1]! ** 2);
   }
 
   return {
@@ -127,7 +128,7 @@ export function spectrumRadialAverage(spectrum: AmplitudeSpectrum2d): MtfCurve {
     const v = (ky <= ny / 2 ? ky : ky - ny) * dv;
     for (let kx = 0; kx < nx; kx++) {
       const u = (kx <= nx / 2 ? kx : kx - nx) * du;
-      const radius = Math.hypot(u, v) / ringWidth;
+      const radius = Math.sqrt(u * u + v * v) / ringWidth;
       const ring = radius === 0 ? 0 : Math.max(1, Math.round(radius));
       if (ring >= ringCount) continue;
       const t = radius - ring;

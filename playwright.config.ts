@@ -14,7 +14,8 @@ export default defineConfig({
   retries: process.env.CI ? 1 : 0,
   timeout: 60_000,
   expect: { timeout: 10_000 },
-  reporter: [["list"]],
+  // The JSON report (file named by PLAYWRIGHT_JSON_OUTPUT_NAME) feeds the totals line of `npm test`.
+  reporter: process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ? [["list"], ["json"]] : [["list"]],
   use: {
     baseURL,
     trace: "retain-on-failure",

@@ -1,6 +1,9 @@
 // halfmax bench – times image decoding and the four analysis methods on synthetic phantoms.
 //
-//   npm run bench [-- --runs 15 --warmup 3]
+//   npm run bench [-- --runs 15 --warmup 8]
+//
+// Each case is first run --warmup times (default 5, untimed): the analysis methods run their long pixel loops once
+// per call, so V8 needs a few calls before all of their code is optimised; the timed runs then measure steady state.
 //
 // Prints minimum, median and 95th-percentile wall time per case (on a shared machine the minimum is the run least
 // disturbed by other processes), the high-water mark of JS memory (V8 heap + array buffers, sampled after each run),
@@ -100,7 +103,7 @@ function measure(c: BenchCase, runs: number, warmup: number): BenchRow {
 }
 
 function main(): void {
-  const { values } = parseArgs({ options: { runs: { type: "string", default: "10" }, warmup: { type: "string", default: "2" } } });
+  const { values } = parseArgs({ options: { runs: { type: "string", default: "10" }, warmup: { type: "string", default: "5" } } });
   const runs = Number(values.runs);
   const warmup = Number(values.warmup);
   if (!(Number.isInteger(runs) && runs >= 1 && Number.isInteger(warmup) && warmup >= 0)) {

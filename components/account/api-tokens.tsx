@@ -5,7 +5,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import { ConfirmDialog } from "@/components/admin/confirm-dialog";
-import { formatDateTime } from "@/components/admin/format-date";
+import { formatDateTime } from "@/lib/format/dates";
 import { ServerError } from "@/components/admin/server-error";
 import { Button } from "@/components/ui/button";
 import { Callout } from "@/components/ui/callout";
@@ -106,7 +106,7 @@ export function ApiTokens() {
                 {formatDateTime(t.createdAt)}
               </Td>
               <Td muted className="whitespace-nowrap">
-                {formatDateTime(t.lastUsedAt)}
+                {formatDateTime(t.lastUsedAt, "Never")}
               </Td>
               <Td muted className="whitespace-nowrap">
                 {t.revokedAt ? `Revoked ${formatDateTime(t.revokedAt)}` : "Active"}

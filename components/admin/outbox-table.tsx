@@ -7,7 +7,7 @@ import { useId, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button, Callout, Card, DataTable, Dialog, Field, Input, StatusBadge } from "@/components/ui";
-import { formatDateTime } from "@/components/alerts/alert-format";
+import { formatDateTime } from "@/lib/format/dates";
 import type { MailMessage } from "@/db/schema";
 import { errorMessage, fetchJson } from "@/lib/api/fetch-json";
 import { testMailSchema } from "@/lib/validations/alert";

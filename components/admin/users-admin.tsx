@@ -15,7 +15,7 @@ import { ActiveChip } from "./active-chip";
 import { AddUserDialog } from "./add-user-dialog";
 import { MAIL_PREFERENCE_LABELS, QUERY_KEYS, type UserRow } from "./admin-types";
 import { ConfirmDialog } from "./confirm-dialog";
-import { formatDateTime } from "./format-date";
+import { formatDateTime } from "@/lib/format/dates";
 
 type Notice = { tone: "success" | "error"; text: string } | null;
 
@@ -111,7 +111,7 @@ export function UsersAdmin({ currentUserId }: { currentUserId: number }) {
         meta: { muted: true },
         sortingFn: "datetime",
         sortUndefined: "last",
-        cell: (c) => <span className="whitespace-nowrap tnum">{formatDateTime(c.getValue())}</span>,
+        cell: (c) => <span className="whitespace-nowrap tnum">{formatDateTime(c.getValue(), "Never")}</span>,
       }),
       col.accessor((u) => MAIL_PREFERENCE_LABELS[u.mailPreference], { id: "mailPreference", header: "Mail preference", meta: { muted: true } }),
       col.display({

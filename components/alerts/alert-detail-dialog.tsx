@@ -5,7 +5,7 @@ import Link from "next/link";
 import { useId, useState } from "react";
 import { Button, Callout, Dialog, SkeletonText, StatusBadge } from "@/components/ui";
 import { errorMessage, fetchJson } from "@/lib/api/fetch-json";
-import { formatDateTime } from "./alert-format";
+import { formatDateTime } from "@/lib/format/dates";
 import { AcknowledgeDialog } from "./acknowledge-dialog";
 import { AlertTimeline } from "./alert-timeline";
 import { alertKeys, alertsUrl, type AlertDetail, type AlertPermissions, type AlertRow } from "./alert-types";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { cn } from "@/components/ui";
-import { formatDateTime } from "./alert-format";
+import { formatDateTime } from "@/lib/format/dates";
 import type { AlertDetail } from "./alert-types";
 import { proposalText } from "./cause-label";
 

@@ -4,7 +4,7 @@ import { createColumnHelper } from "@tanstack/react-table";
 import Link from "next/link";
 import { useMemo, type ReactNode } from "react";
 import { DataTable, StatusBadge, StatusIcon } from "@/components/ui";
-import { formatDateTime } from "./alert-format";
+import { formatDateTime } from "@/lib/format/dates";
 import type { AlertRow } from "./alert-types";
 import { CAUSE_META, CauseLabel, proposalText } from "./cause-label";
 

@@ -8,7 +8,7 @@ import type { z } from "zod";
 import { Button, Callout, Dialog, Field, Textarea } from "@/components/ui";
 import { errorMessage } from "@/lib/api/fetch-json";
 import { resolveAlertSchema } from "@/lib/validations/alert";
-import { formatDateTime } from "./alert-format";
+import { formatDateTime } from "@/lib/format/dates";
 import { useAlertAction } from "./use-alert-action";
 
 type ResolveValues = z.input<typeof resolveAlertSchema>;

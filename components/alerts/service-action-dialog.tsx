@@ -7,7 +7,7 @@ import { z } from "zod";
 import { Button, Callout, Dialog, Field, Input, Textarea } from "@/components/ui";
 import { errorMessage } from "@/lib/api/fetch-json";
 import { serviceEventSchema } from "@/lib/validations/alert";
-import { fromDateTimeLocal, toDateTimeLocal } from "./alert-format";
+import { fromDateTimeLocal, toDateTimeLocal } from "@/lib/format/dates";
 import { applyServerIssues, useAlertAction } from "./use-alert-action";
 
 /** A few minutes of clock difference between the engineer's device and the server are tolerated. */

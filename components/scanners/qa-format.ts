@@ -3,43 +3,18 @@
  * Dates are shown in UTC, the zone the schedule is computed in (lib/qa/schedule.ts), so the server render and the
  * browser agree and "due 8 Dec" means the same day for everyone.
  */
+import { formatDate, formatDayMonth, parseIsoDate } from "@/lib/format/dates";
 import { METRICS, type MetricKey } from "@/lib/qa/metrics";
 import type { Frequency, MethodName, TestStatusJson } from "./qa-types";
 
-const DAY_MONTH = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", timeZone: "UTC" });
-const DATE = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-const DATE_TIME = new Intl.DateTimeFormat("en-GB", {
-  day: "numeric",
-  month: "short",
-  year: "numeric",
-  hour: "2-digit",
-  minute: "2-digit",
-  timeZone: "UTC",
-});
-
-function parse(iso: string | null | undefined): Date | null {
-  if (!iso) return null;
-  const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? null : d;
-}
-
-/** "8 Dec 2026", or `fallback`. */
-export function formatDate(iso: string | null | undefined, fallback = "—"): string {
-  const d = parse(iso);
-  return d ? DATE.format(d) : fallback;
-}
-
-/** "8 Dec 2026, 14:05 UTC", or `fallback`. */
-export function formatDateTime(iso: string | null | undefined, fallback = "—"): string {
-  const d = parse(iso);
-  return d ? `${DATE_TIME.format(d)} UTC` : fallback;
-}
+export { formatDate, formatDateTime } from "@/lib/format/dates";
+const parse = parseIsoDate;
 
 /** "8 Dec" within the current year (UTC), "8 Dec 2027" otherwise. */
 export function formatShortDate(iso: string | null | undefined, now = new Date(), fallback = "—"): string {
   const d = parse(iso);
   if (!d) return fallback;
-  return d.getUTCFullYear() === now.getUTCFullYear() ? DAY_MONTH.format(d) : DATE.format(d);
+  return d.getUTCFullYear() === now.getUTCFullYear() ? formatDayMonth(d) : formatDate(d.toISOString());
 }
 
 /** "YYYY-MM-DD" of a date in UTC (the value of a date input). */

@@ -17,6 +17,7 @@ import { AnalysisError } from "./errors";
 import { lsfWidths } from "./lsf-widths";
 import { summariseMtf } from "./mtf-metrics";
 import { findObjectRegion, type ObjectRegion } from "./object-region";
+import { binAnnulus, plateauNoiseSd, type Annulus } from "./radial-esf";
 import { ANALYSIS_VERSION, type AnalysisResult, type AnalysisWarning, type GrayImage, type Roi } from "./types";
 
 /** Defaults of {@link analyseCircularEdge}. */
@@ -95,46 +96,27 @@ export function analyseCircularEdge(image: GrayImage, options: CircularEdgeOptio
   const binWidthMm = pitch / o.binsPerPixel;
   const accumulator = new EsfAccumulator(-innerMm, outerMm, binWidthMm);
   const reach = radius + outerMm;
-  const y0 = Math.max(roi.y, Math.ceil((cy - reach) / py));
-  const y1 = Math.min(roi.y + roi.height - 1, Math.floor((cy + reach) / py));
-  const x0 = Math.max(roi.x, Math.ceil((cx - reach) / px));
-  const x1 = Math.min(roi.x + roi.width - 1, Math.floor((cx + reach) / px));
-  let pixelsUsed = 0;
-  // Math.sqrt rather than Math.hypot in the pixel loops: hypot's overflow guard costs several times more.
-  for (let y = y0; y <= y1; y++) {
-    const dy2 = (y * py - cy) ** 2;
-    const offset = y * image.width;
-    for (let x = x0; x <= x1; x++) {
-      const dx = x * px - cx;
-      const d = Math.sqrt(dx * dx + dy2) - radius;
-      if (d < -innerMm || d > outerMm) continue;
-      accumulator.add(d, image.data[offset + x]!);
-      pixelsUsed++;
-    }
-  }
+  const annulus: Annulus = {
+    centreXMm: cx,
+    centreYMm: cy,
+    radiusMm: radius,
+    innerMm,
+    outerMm,
+    x0: Math.max(roi.x, Math.ceil((cx - reach) / px)),
+    x1: Math.min(roi.x + roi.width - 1, Math.floor((cx + reach) / px)),
+    y0: Math.max(roi.y, Math.ceil((cy - reach) / py)),
+    y1: Math.min(roi.y + roi.height - 1, Math.floor((cy + reach) / py)),
+  };
+  const { x0, x1, y0, y1 } = annulus;
+  const pixelsUsed = binAnnulus(image, annulus, accumulator);
   const esf = accumulator.finish();
   const edgeBins = Math.max(2, Math.round(0.1 * esf.value.length));
   const insideValue = meanOver(esf.value, 0, edgeBins);
   const outsideValue = meanOver(esf.value, esf.value.length - edgeBins, esf.value.length);
   const contrast = insideValue - outsideValue;
   const rimOffsetMm = halfLevelCrossing(esf, 0.5 * (insideValue + outsideValue));
-
-  let residualSum = 0;
-  let residualCount = 0;
-  const plateauMm = 0.5 * Math.min(innerMm, outerMm);
-  for (let y = y0; y <= y1; y++) {
-    const dy2 = (y * py - cy) ** 2;
-    for (let x = x0; x <= x1; x++) {
-      const dx = x * px - cx;
-      const d = Math.sqrt(dx * dx + dy2) - radius;
-      if (d < -innerMm || d > outerMm || Math.abs(d - rimOffsetMm) < plateauMm) continue;
-      const bin = accumulator.binIndex(d);
-      if (bin < 0) continue;
-      residualSum += (image.data[y * image.width + x]! - accumulator.binMean(bin)) ** 2;
-      residualCount++;
-    }
-  }
-  const noiseSd = residualCount >= 16 ? Math.sqrt(residualSum / residualCount) : region.noiseSd;
+  const plateauNoise = plateauNoiseSd(image, annulus, accumulator, rimOffsetMm, 0.5 * Math.min(innerMm, outerMm));
+  const noiseSd = Number.isNaN(plateauNoise) ? region.noiseSd : plateauNoise;
 
   const nyquist = 1 / (2 * pitch);
   const chain = esfToMtf(esf, {

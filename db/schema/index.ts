@@ -187,7 +187,8 @@ export const metricValues = mysqlTable(
     measuredAt: datetime("measured_at", { mode: "date", fsp: 3 }).notNull(),
   },
   (t) => [
-    index("metric_values_trend_idx").on(t.scannerId, t.metric, t.isCurrent, t.measuredAt),
+    // Covers the fleet sparkline (value included) and serves the trend queries.
+    index("metric_values_trend_value_idx").on(t.scannerId, t.metric, t.isCurrent, t.measuredAt, t.value),
     index("metric_values_analysis_idx").on(t.analysisId),
   ],
 );

@@ -1,0 +1,2 @@
+CREATE INDEX `metric_values_trend_value_idx` ON `metric_values` (`scanner_id`,`metric`,`is_current`,`measured_at`,`value`);--> statement-breakpoint
+DROP INDEX `metric_values_trend_idx` ON `metric_values`;

@@ -61,12 +61,14 @@ export function levelCrossings(xs: readonly number[], ys: readonly number[], lev
   return left === null || right === null ? null : { left, right };
 }
 
-/** About `target` evenly spaced round ticks (steps 1, 2, 2.5 or 5 × 10ⁿ) covering [min, max]. */
+/** About `target` (at most target + 2) evenly spaced round ticks (steps 1, 2, 2.5 or 5 × 10ⁿ) within [min, max]. */
 export function niceTicks(min: number, max: number, target = 6): number[] {
   if (!Number.isFinite(min) || !Number.isFinite(max) || !(max > min)) return [Number.isFinite(min) ? min : 0];
   const raw = (max - min) / target;
   const magnitude = 10 ** Math.floor(Math.log10(raw));
-  const step = [1, 2, 2.5, 5, 10].map((k) => k * magnitude).find((s) => s >= raw) ?? 10 * magnitude;
+  // The finest round step that gives at most target + 2 ticks.
+  const candidates = [0.5, 1, 2, 2.5, 5, 10, 20].map((k) => k * magnitude);
+  const step = candidates.find((c) => Math.floor((max - min) / c + 1e-9) + 1 <= target + 2) ?? 20 * magnitude;
   const ticks: number[] = [];
   for (let t = Math.ceil(min / step - 1e-9) * step; t <= max + step * 1e-9; t += step) ticks.push(Math.abs(t) < step * 1e-9 ? 0 : Number(t.toPrecision(12)));
   return ticks;

@@ -4,7 +4,7 @@ import { useMemo } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { formatMetric } from "@/components/ui";
 import { ChartDataTable, type ChartDataColumn } from "./chart-data-table";
-import { AXIS_TICK, CHART_COLOURS, interpolateAt } from "./chart-utils";
+import { AXIS_TICK, CHART_COLOURS, interpolateAt, niceTicks, tickDigits } from "./chart-utils";
 
 /** A sampled MTF: frequencies in cycles/mm (ascending), values normalised to 1 at f = 0. */
 export interface MtfSeries {
@@ -63,6 +63,7 @@ export function MtfChart({ mtf, cuts, baseline, nyquist, mtf50, mtf10, mtfAtNyqu
     return out;
   }, [mtf, cuts, baseline, limit]);
 
+  const xTicks = niceTicks(0, limit, 6);
   const hasX = Boolean(cuts?.x);
   const hasY = Boolean(cuts?.y);
   const hasBaseline = Boolean(baseline && rows.some((r) => r.baseline !== null));
@@ -91,9 +92,10 @@ export function MtfChart({ mtf, cuts, baseline, nyquist, mtf50, mtf10, mtfAtNyqu
               dataKey="f"
               type="number"
               domain={[0, limit]}
+              ticks={xTicks}
               allowDataOverflow
               tick={AXIS_TICK}
-              tickFormatter={(v: number) => formatMetric(v, limit < 1 ? 2 : 1)}
+              tickFormatter={(v: number) => formatMetric(v, tickDigits(xTicks))}
               label={{ value: "Spatial frequency (cycles/mm)", position: "insideBottom", offset: -14, fill: CHART_COLOURS.axis, fontSize: 12 }}
             />
             <YAxis

@@ -68,17 +68,24 @@ function SpreadKindChart({ kind, curves, widths, height }: { kind: SpreadCurveJs
     const cross = shown.map((c) => ({ id: c.id, at: showHalfMax ? levelCrossings(c.positionMm, c.value, 0.5) : null }));
     const first = positions[0] ?? 0;
     const last = positions[positions.length - 1] ?? 1;
-    // PSF/LSF: show 1.5 × the reach of the tails above 2 % of the peak, not the whole ROI of flat background.
+    // PSF/LSF: zoom on the peak, not the whole ROI of flat, noisy background. From the peak, walk out to the first
+    // sample below 2 % of it on each side, and show 2.5 × that reach (tails stay visible).
     let lo = first;
     let hi = last;
     if (showHalfMax) {
       let reach = 0;
       for (const c of shown) {
-        for (let i = 0; i < c.positionMm.length; i++) if (c.value[i]! >= 0.02) reach = Math.max(reach, Math.abs(c.positionMm[i]!));
+        let peak = 0;
+        for (let i = 1; i < c.value.length; i++) if (c.value[i]! > c.value[peak]!) peak = i;
+        let l = peak;
+        while (l > 0 && c.value[l]! >= 0.02) l--;
+        let r = peak;
+        while (r < c.value.length - 1 && c.value[r]! >= 0.02) r++;
+        reach = Math.max(reach, Math.abs(c.positionMm[l]! - c.positionMm[peak]!), Math.abs(c.positionMm[r]! - c.positionMm[peak]!), Math.abs(c.positionMm[peak]!));
       }
       if (reach > 0) {
-        lo = Math.max(first, -1.5 * reach);
-        hi = Math.min(last, 1.5 * reach);
+        lo = Math.max(first, -2.5 * reach);
+        hi = Math.min(last, 2.5 * reach);
       }
     }
     const ticks = niceTicks(lo, hi, 6);

@@ -3,11 +3,13 @@
  * ISO strings). The result page passes exactly this to its client components, so they can also take an API response.
  * Frequencies in cycles/mm (= lp/mm), lengths in mm, ROI in pixels of the analysed frame.
  */
+import type { AnalysisMethod, MethodChoice } from "@/lib/analysis/types";
 import type { MetricKey } from "@/lib/qa/metrics";
+import type { AnalysisJson } from "@/lib/report/analysis-json";
 
 export type ResultStatus = "pass" | "warning" | "action" | "no-baseline";
-export type MethodKey = "point" | "line" | "edge" | "disk";
-export type MethodChoiceKey = MethodKey | "auto";
+export type MethodKey = AnalysisMethod;
+export type MethodChoiceKey = MethodChoice;
 
 export interface RoiJson {
   x: number;
@@ -62,31 +64,15 @@ export interface DriftFlagJson {
   isBadSide?: boolean;
 }
 
-export interface AnalysisJsonView {
+/** The analysis JSON (lib/report/analysis-json.ts, the same keys as the CLI) plus what the API adds around it. */
+export interface AnalysisJsonView extends Omit<AnalysisJson, "mtf"> {
   id: number;
   revision: number;
   status: ResultStatus;
   createdAt: string;
   createdBy: string | null;
   options: Record<string, unknown> | null;
-  method: MethodKey;
-  /** [row spacing, column spacing] = [y, x], mm. */
-  pixelSpacingMm: [number, number];
-  fwhmMm: number | null;
-  fwtmMm: number | null;
-  fwhmXMm?: number | null;
-  fwhmYMm?: number | null;
-  fwtmXMm?: number | null;
-  fwtmYMm?: number | null;
-  mtf50: number | null;
-  mtf10: number | null;
-  nyquist: number;
-  mtfAtNyquist: number | null;
-  edgeAngleDeg?: number;
   mtf: MtfCurveJson;
-  warnings: { code: string; message: string }[];
-  version: string;
-  timingMs?: { decode: number; analysis: number };
   roi: RoiJson;
   spread: SpreadCurveJson[];
   mtfCurves: Record<string, MtfCurveJson | undefined>;

@@ -40,6 +40,30 @@ export interface DecodedImage {
   warnings: DecodeWarning[];
 }
 
+/**
+ * A DecodedImage for a format without a DICOM header (PNG, TIFF, raw): no pixel spacing, transfer syntax,
+ * photometric interpretation or modality, so the caller must supply the spacing (see frameImage).
+ */
+export function headerlessImage(
+  fields: Pick<DecodedImage, "width" | "height" | "frames" | "data" | "format" | "attributes" | "warnings">,
+): DecodedImage {
+  return {
+    width: fields.width,
+    height: fields.height,
+    frames: fields.frames,
+    data: fields.data,
+    pixelSpacingMm: null,
+    pixelSpacingSource: null,
+    sliceSpacingMm: null,
+    format: fields.format,
+    transferSyntaxUid: null,
+    photometricInterpretation: null,
+    modality: null,
+    attributes: fields.attributes,
+    warnings: fields.warnings,
+  };
+}
+
 /** Options shared by every decoder. */
 export interface DecodeLimits {
   /** Reject images with more than this many pixels (Rows × Columns × Frames). Default DEFAULT_MAX_PIXELS. */

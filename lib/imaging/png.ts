@@ -4,7 +4,7 @@
  * has R = G = B. PNG carries no usable pixel spacing (pHYs is a print resolution), so `pixelSpacingMm` is null.
  */
 import { PNG } from "pngjs";
-import { DEFAULT_MAX_PIXELS, checkPixelLimit, type DecodeLimits, type DecodedImage } from "./decoded-image";
+import { DEFAULT_MAX_PIXELS, checkPixelLimit, headerlessImage, type DecodeLimits, type DecodedImage } from "./decoded-image";
 import { ImageDecodeError, type DecodeWarning } from "./image-decode-error";
 
 interface PngMetadata {
@@ -73,19 +73,13 @@ export function decodePng(bytes: Uint8Array, options: DecodeLimits = {}): Decode
   if (colour) warnings.push({ code: "colour_png_grey", message: "the PNG is stored as colour but every pixel is grey (R = G = B); the grey value was used" });
   if (partlyTransparent) warnings.push({ code: "alpha_ignored", message: "the PNG has transparency; the alpha channel was ignored" });
 
-  return {
+  return headerlessImage({
     width,
     height,
     frames: 1,
     data,
-    pixelSpacingMm: null,
-    pixelSpacingSource: null,
-    sliceSpacingMm: null,
     format: "png",
-    transferSyntaxUid: null,
-    photometricInterpretation: null,
-    modality: null,
     attributes: { BitsStored: png.colorType === 3 ? 8 : png.depth },
     warnings,
-  };
+  });
 }

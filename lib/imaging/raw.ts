@@ -2,7 +2,7 @@
  * Headerless raw images: frames × height × width samples, row-major, little endian unless told otherwise. The caller
  * gives the layout; the byte length must match it exactly.
  */
-import { DEFAULT_MAX_PIXELS, checkFiniteSamples, checkPixelLimit, type DecodeLimits, type DecodedImage } from "./decoded-image";
+import { DEFAULT_MAX_PIXELS, checkFiniteSamples, checkPixelLimit, headerlessImage, type DecodeLimits, type DecodedImage } from "./decoded-image";
 import { ImageDecodeError } from "./image-decode-error";
 
 export type RawSampleType = "uint8" | "uint16" | "int16" | "uint32" | "int32" | "float32" | "float64";
@@ -74,19 +74,13 @@ export function decodeRaw(bytes: Uint8Array, raw: RawOptions, options: DecodeLim
   for (let i = 0; i < n; i++) data[i] = read(i);
   if (raw.type.startsWith("float")) checkFiniteSamples(data, "the raw float image");
 
-  return {
+  return headerlessImage({
     width: raw.width,
     height: raw.height,
     frames,
     data,
-    pixelSpacingMm: null,
-    pixelSpacingSource: null,
-    sliceSpacingMm: null,
     format: "raw",
-    transferSyntaxUid: null,
-    photometricInterpretation: null,
-    modality: null,
     attributes: {},
     warnings: [],
-  };
+  });
 }

@@ -4,7 +4,7 @@
  * TIFF resolution tags are print resolutions, so `pixelSpacingMm` is null (the caller supplies the spacing).
  */
 import UTIF from "utif";
-import { DEFAULT_MAX_PIXELS, checkFiniteSamples, checkPixelLimit, type DecodeLimits, type DecodedImage } from "./decoded-image";
+import { DEFAULT_MAX_PIXELS, checkFiniteSamples, checkPixelLimit, headerlessImage, type DecodeLimits, type DecodedImage } from "./decoded-image";
 import { ImageDecodeError, type DecodeWarning } from "./image-decode-error";
 import { checkSegments, readFirstIfd, type TiffIfd } from "./tiff-ifd";
 
@@ -100,19 +100,13 @@ export function decodeTiff(bytes: Uint8Array, options: DecodeLimits = {}): Decod
     warnings.push({ code: "white_is_zero_inverted", message: "the TIFF is WhiteIsZero; values were inverted so that bright is high" });
   }
 
-  return {
+  return headerlessImage({
     width,
     height,
     frames: 1,
     data,
-    pixelSpacingMm: null,
-    pixelSpacingSource: null,
-    sliceSpacingMm: null,
     format: "tiff",
-    transferSyntaxUid: null,
-    photometricInterpretation: null,
-    modality: null,
     attributes: { BitsStored: bits },
     warnings,
-  };
+  });
 }

@@ -10,6 +10,7 @@ import { ServerError } from "@/components/admin/server-error";
 import { Button } from "@/components/ui/button";
 import { Callout } from "@/components/ui/callout";
 import { Dialog } from "@/components/ui/dialog";
+import { FormDialog } from "@/components/ui/form-dialog";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
@@ -192,29 +193,21 @@ function CreateTokenDialog({ open, onClose, onCreated }: { open: boolean; onClos
     onClose();
   };
   return (
-    <Dialog
+    <FormDialog
       open={open}
       size="sm"
-      onOpenChange={(next) => {
-        if (!next) close();
-      }}
+      onClose={close}
       title="Create API token"
-      footer={
-        <>
-          <Button variant="secondary" onClick={close} disabled={create.isPending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={create.isPending} loadingText="Creating…">
-            Create token
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={create.isPending}
+      submitLabel="Create token"
+      pendingLabel="Creating…"
     >
       <div className="flex flex-col gap-4">
         <CreateTokenForm formId={formId} onSubmit={(input) => create.mutateAsync(input).catch(() => undefined)} />
         <ServerError error={create.error} title="The token was not created" />
       </div>
-    </Dialog>
+    </FormDialog>
   );
 }
 

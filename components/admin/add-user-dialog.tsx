@@ -5,8 +5,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { Button } from "@/components/ui/button";
-import { Dialog } from "@/components/ui/dialog";
+import { FormDialog } from "@/components/ui/form-dialog";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
@@ -41,29 +40,21 @@ export function AddUserDialog({ open, onClose, onAdded }: { open: boolean; onClo
   };
 
   return (
-    <Dialog
+    <FormDialog
       open={open}
-      onOpenChange={(next) => {
-        if (!next) close();
-      }}
+      onClose={close}
       title="Add user"
       description="The new user signs in with their e-mail address and gets the permissions of their role."
-      footer={
-        <>
-          <Button variant="secondary" onClick={close} disabled={create.isPending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={create.isPending} loadingText="Adding…">
-            Add user
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={create.isPending}
+      submitLabel="Add user"
+      pendingLabel="Adding…"
     >
       <div className="flex flex-col gap-4">
         <AddUserForm formId={formId} onSubmit={(input) => create.mutateAsync(input).catch(() => undefined)} />
         <ServerError error={create.error} title="The user was not added" />
       </div>
-    </Dialog>
+    </FormDialog>
   );
 }
 

@@ -5,8 +5,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useId, useMemo } from "react";
 import { Controller, useForm } from "react-hook-form";
 import type { z } from "zod";
-import { Button } from "@/components/ui/button";
-import { Dialog } from "@/components/ui/dialog";
+import { FormDialog } from "@/components/ui/form-dialog";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
@@ -84,31 +83,24 @@ export function ScannerFormDialog({ open, scanner, onClose, onSaved }: ScannerFo
   }
 
   return (
-    <Dialog
+    <FormDialog
       open={open}
       size="lg"
-      onOpenChange={(next) => {
-        if (!next) close();
-      }}
+      onClose={close}
       title={scanner ? `Edit ${scanner.name}` : "Add scanner"}
       description="Identification, responsibility and alerting of one scanner in the register."
-      footer={
-        <>
-          <Button variant="secondary" onClick={close} disabled={save.isPending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={save.isPending} loadingText="Saving…" disabled={!ready}>
-            Save scanner
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={save.isPending}
+      submitLabel="Save scanner"
+      pendingLabel="Saving…"
+      submitDisabled={!ready}
     >
       <div className="flex flex-col gap-4">
         {/* Above the long form, so it is seen without scrolling. */}
         <ServerError error={save.error} title="The scanner was not saved" />
         {content}
       </div>
-    </Dialog>
+    </FormDialog>
   );
 }
 

@@ -5,8 +5,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { Button } from "@/components/ui/button";
-import { Dialog } from "@/components/ui/dialog";
+import { FormDialog } from "@/components/ui/form-dialog";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { fetchJson } from "@/lib/api/fetch-json";
@@ -50,24 +49,16 @@ export function SiteFormDialog({ open, site, onClose, onSaved }: SiteFormDialogP
   };
 
   return (
-    <Dialog
+    <FormDialog
       open={open}
       size="sm"
-      onOpenChange={(next) => {
-        if (!next) close();
-      }}
+      onClose={close}
       title={site ? `Edit ${site.name}` : "Add site"}
       description={site ? "Scanners at this site keep their history; only what is displayed changes." : "A hospital, clinic or building where scanners stand."}
-      footer={
-        <>
-          <Button variant="secondary" onClick={close} disabled={save.isPending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={save.isPending} loadingText="Saving…">
-            Save site
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={save.isPending}
+      submitLabel="Save site"
+      pendingLabel="Saving…"
     >
       <div className="flex flex-col gap-4">
         <SiteForm
@@ -83,7 +74,7 @@ export function SiteFormDialog({ open, site, onClose, onSaved }: SiteFormDialogP
         />
         <ServerError error={save.error} title={site ? "The site was not renamed" : "The site was not added"} />
       </div>
-    </Dialog>
+    </FormDialog>
   );
 }
 

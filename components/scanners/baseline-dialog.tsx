@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useId, useMemo } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
-import { Button, Callout, Dialog, Field, Select, SkeletonText, StatusBadge, Textarea } from "@/components/ui";
+import { Button, Callout, Field, FormDialog, Select, SkeletonText, StatusBadge, Textarea } from "@/components/ui";
 import { ServerError } from "@/components/admin/server-error";
 import { errorMessage } from "@/lib/api/fetch-json";
 import { createBaselineSchema, type CreateBaselineInput } from "@/lib/validations/qa";
@@ -38,23 +38,19 @@ export function BaselineDialog({ scannerId, tests, open, onClose, onSaved }: { s
   const pending = save.isPending;
 
   return (
-    <Dialog
+    <FormDialog
       open={open}
       size="lg"
-      onOpenChange={(next) => {
-        if (!next && !pending) onClose();
-      }}
+      onClose={onClose}
       title="Set a new baseline"
       description="Tick results taken under stable, verified conditions (e.g. at acceptance or after major service). The baseline in force now is kept in the history."
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose} disabled={pending}>Cancel</Button>
-          <Button type="submit" form={formId} loading={pending} loadingText="Setting…">Set baseline</Button>
-        </>
-      }
+      formId={formId}
+      pending={pending}
+      submitLabel="Set baseline"
+      pendingLabel="Setting…"
     >
       <BaselineForm formId={formId} scannerId={scannerId} tests={tests} onSubmit={(v) => save.mutateAsync(v).then(() => undefined, () => undefined)} error={save.error} />
-    </Dialog>
+    </FormDialog>
   );
 }
 

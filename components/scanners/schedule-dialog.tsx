@@ -5,7 +5,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useId } from "react";
 import { useFieldArray, useForm } from "react-hook-form";
 import type { z } from "zod";
-import { Button, Dialog, Field, Input, Select, Textarea } from "@/components/ui";
+import { Button, Field, FormDialog, Input, Select, Textarea } from "@/components/ui";
 import { ServerError } from "@/components/admin/server-error";
 import { putTestsSchema } from "@/lib/validations/qa";
 import { FREQUENCY_LABELS, METHOD_NAMES } from "./qa-format";
@@ -39,23 +39,19 @@ export function ScheduleDialog({ scannerId, tests, open, onClose }: { scannerId:
   const pending = save.isPending;
 
   return (
-    <Dialog
+    <FormDialog
       open={open}
       size="lg"
-      onOpenChange={(next) => {
-        if (!next && !pending) onClose();
-      }}
+      onClose={onClose}
       title="Routine tests and schedule"
       description="What is measured on this scanner and how often. Due dates count from each test's last result."
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose} disabled={pending}>Cancel</Button>
-          <Button type="submit" form={formId} loading={pending} loadingText="Saving…">Save schedule</Button>
-        </>
-      }
+      formId={formId}
+      pending={pending}
+      submitLabel="Save schedule"
+      pendingLabel="Saving…"
     >
       <ScheduleForm formId={formId} tests={tests} onSubmit={(v) => save.mutateAsync(v).then(() => undefined, () => undefined)} error={save.error} />
-    </Dialog>
+    </FormDialog>
   );
 }
 

@@ -8,6 +8,7 @@ export { Select, type SelectProps } from "./select";
 export { Field, type FieldProps, type FieldControlProps } from "./field";
 export { Card, CardHeader, CardTitle, CardDescription, CardBody, CardFooter, type CardProps, type CardHeaderProps, type CardTitleProps, type CardBodyProps } from "./card";
 export { Dialog, type DialogProps } from "./dialog";
+export { FormDialog, type FormDialogProps } from "./form-dialog";
 export { Table, THead, TBody, Tr, Th, Td, SortIndicator, type SortDirection, type TableProps, type TrProps, type ThProps, type TdProps } from "./table-shell";
 export { DataTable, type DataTableProps } from "./data-table";
 export { StatusBadge, StatusIcon, STATUS_LABELS, type Status, type StatusBadgeProps } from "./status-badge";

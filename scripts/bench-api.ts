@@ -63,8 +63,19 @@ async function main(): Promise<void> {
   const { GET: fleet } = await import("@/app/api/scanners/route");
   const { GET: trend } = await import("@/app/api/scanners/[id]/trend/route");
   const headers = { authorization: `Bearer ${token}` };
+  const { computeFleetStatus } = await import("@/db/queries/fleet");
+  const { listScannersForUser } = await import("@/db/queries/scanners");
+  const lead = { id: 1, email: "lead@bench.test", name: "Bench Lead", role: "lead" as const };
   const cases = [
-    { name: "GET /api/scanners (fleet with status)", call: () => fleet(new Request("http://bench/api/scanners", { headers }), { params: Promise.resolve({}) }) },
+    {
+      name: "fleet status computed afresh (no cache; what the first request after a change pays)",
+      call: async () => {
+        const scanners = await listScannersForUser(lead);
+        const status = await computeFleetStatus(scanners.map((s) => s.id));
+        return Response.json({ scanners: scanners.map((s) => ({ ...s, status: status.get(s.id) ?? null })) });
+      },
+    },
+    { name: "GET /api/scanners (fleet with status; cached between changes)", call: () => fleet(new Request("http://bench/api/scanners", { headers }), { params: Promise.resolve({}) }) },
     {
       name: "GET /api/scanners/{id}/trend?metric=mtf50 (5 years)",
       call: (i: number) => {
@@ -81,7 +92,7 @@ async function main(): Promise<void> {
       },
     },
   ];
-  console.log(`\n${"endpoint".padEnd(58)} ${"n".padStart(5)} ${"p50 ms".padStart(8)} ${"p95 ms".padStart(8)} ${"max ms".padStart(8)}  target p95 < 100 ms`);
+  console.log(`\n${"endpoint".padEnd(90)} ${"n".padStart(5)} ${"p50 ms".padStart(8)} ${"p95 ms".padStart(8)} ${"max ms".padStart(8)}  target p95 < 100 ms`);
   for (const c of cases) {
     for (let i = 0; i < 5; i++) await (await c.call(i)).arrayBuffer(); // warm-up
     const times: number[] = [];
@@ -100,7 +111,7 @@ async function main(): Promise<void> {
     times.sort((a, b) => a - b);
     const q = (p: number) => times[Math.min(times.length - 1, Math.floor(p * times.length))]!;
     const p95 = q(0.95);
-    console.log(`${c.name.padEnd(58)} ${String(times.length).padStart(5)} ${q(0.5).toFixed(1).padStart(8)} ${p95.toFixed(1).padStart(8)} ${times[times.length - 1]!.toFixed(1).padStart(8)}  ${p95 < 100 ? "met" : "MISSED"}`);
+    console.log(`${c.name.padEnd(90)} ${String(times.length).padStart(5)} ${q(0.5).toFixed(1).padStart(8)} ${p95.toFixed(1).padStart(8)} ${times[times.length - 1]!.toFixed(1).padStart(8)}  ${p95 < 100 ? "met" : "MISSED"}`);
   }
   console.log(`\n(concurrency ${CONCURRENCY}; database ${scratch}, dropped afterwards)`);
   await closeDb();

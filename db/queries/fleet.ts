@@ -1,6 +1,7 @@
 import { and, eq, gte, inArray, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { alerts, analyses, metricValues, qaTests, scans } from "@/db/schema";
+import { versionedCache } from "@/lib/cache/change-version";
 import { dueState, type DueStateName, type Frequency, type Status } from "@/lib/qa";
 
 export interface TestStatus {
@@ -32,8 +33,21 @@ const SEVERITY: Record<Status, number> = { "no-baseline": 0, pass: 1, warning: 2
 const DUE_SEVERITY: Record<DueStateName, number> = { ok: 0, "never-tested": 1, due: 2, overdue: 3 };
 const SPARK_POINTS = 16;
 
-/** Latest status, schedule state, open alerts and a sparkline per scanner, in four set-based queries. */
-export async function getFleetStatus(scannerIds: number[], now = new Date()): Promise<Map<number, ScannerStatus>> {
+/** Fleet status is cached for a few seconds between changes (FLEET_CACHE_MS; 0 disables). */
+const fleetCache = versionedCache<Map<number, ScannerStatus>>(Number(process.env.FLEET_CACHE_MS ?? 5_000));
+
+/**
+ * Latest status, schedule state, open alerts and a sparkline per scanner. Served from a short-lived cache that any
+ * recorded change invalidates; pass `now` to compute afresh for a given moment.
+ */
+export function getFleetStatus(scannerIds: number[], now?: Date): Promise<Map<number, ScannerStatus>> {
+  if (now) return computeFleetStatus(scannerIds, now);
+  const key = [...scannerIds].sort((a, b) => a - b).join(",");
+  return fleetCache(key, () => computeFleetStatus(scannerIds, new Date()));
+}
+
+/** The uncached computation: four set-based queries. */
+export async function computeFleetStatus(scannerIds: number[], now = new Date()): Promise<Map<number, ScannerStatus>> {
   const out = new Map<number, ScannerStatus>();
   if (scannerIds.length === 0) return out;
   for (const id of scannerIds) out.set(id, { tests: [], lastTestAt: null, latestStatus: null, openAlerts: 0, due: "ok", sparkline: [] });

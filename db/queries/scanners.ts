@@ -1,6 +1,7 @@
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
 import { scannerEngineers, scanners, scans, sites, users, type Scanner } from "@/db/schema";
+import { versionedCache } from "@/lib/cache/change-version";
 import { AppError, notFound } from "@/lib/errors";
 import type { CreateScannerInput, UpdateScannerInput } from "@/lib/validations/scanner";
 import { insertAuditEvent } from "./audit";
@@ -13,10 +14,18 @@ export interface ScannerListItem extends Scanner {
   engineers: { id: number; name: string; email: string }[];
 }
 
+const listCache = versionedCache<ScannerListItem[]>(Number(process.env.FLEET_CACHE_MS ?? 5_000));
+
 /**
  * Scanners visible to a user: everyone sees the fleet except service engineers, who see the scanners assigned to them.
+ * Cached for a few seconds between recorded changes (see lib/cache/change-version.ts).
  */
-export async function listScannersForUser(user: SessionUser, opts: { includeInactive?: boolean } = {}): Promise<ScannerListItem[]> {
+export function listScannersForUser(user: SessionUser, opts: { includeInactive?: boolean } = {}): Promise<ScannerListItem[]> {
+  const scope = user.role === "engineer" ? `engineer:${user.id}` : "all";
+  return listCache(`${scope}:${opts.includeInactive ? 1 : 0}`, () => queryScannersForUser(user, opts));
+}
+
+async function queryScannersForUser(user: SessionUser, opts: { includeInactive?: boolean }): Promise<ScannerListItem[]> {
   const conditions = [];
   if (!opts.includeInactive) conditions.push(eq(scanners.active, true));
   if (user.role === "engineer") {

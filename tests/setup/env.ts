@@ -8,3 +8,7 @@ for (const [key, value] of Object.entries(cfg.runtimeEnv)) {
   if (key === "NODE_ENV") continue;
   if (process.env[key] === undefined || key === "HALFMAX_ENV") process.env[key] = value;
 }
+
+// Route tests insert fixtures straight into the database (bypassing the audit log that invalidates cached
+// summaries), so the fleet-status cache is off here; tests/cache/ covers the cache itself.
+process.env.FLEET_CACHE_MS ??= "0";

@@ -1,10 +1,12 @@
 // Seeds the fictional demo group once (users, sites, scanners, tests, then a year of QA history). Safe to re-run.
+import { loadRuntimeEnv } from "./lib/runtime-env";
 import { closeDb, db } from "@/db/client";
 import { seedDemoHistory } from "@/db/seed/seed-history";
 import { seedDemoFleet } from "@/db/seed/seed-demo";
 import { env } from "@/lib/env";
 
 async function main(): Promise<void> {
+  await loadRuntimeEnv();
   const summary = await seedDemoFleet(db(), env().DEMO_PASSWORD);
   if (!summary.created) {
     console.log("[halfmax] demo data already present: left as it is");

@@ -5,6 +5,7 @@ import { createServer, type AddressInfo } from "node:net";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Transporter } from "nodemailer";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { alertPointSourceDicom } from "../helpers/phantom-files";
 import { apiRequest, createTestSite, createTestUser, json, noParams, routeParams, unique, type ErrorJson, type TestUser } from "../helpers/api";
 import { POST as sendTestMail } from "@/app/api/admin/mail/test/route";
 import { GET as listAlertsRoute } from "@/app/api/alerts/route";
@@ -19,42 +20,19 @@ import { PUT as putTolerancesRoute } from "@/app/api/scanners/[id]/tolerances/ro
 import { POST as uploadScanRoute } from "@/app/api/scans/route";
 import { db } from "@/db/client";
 import { alerts, auditEvents, mailOutbox, type MailMessage } from "@/db/schema";
-import { writeDicom } from "@/lib/imaging/dicom-writer";
 import { deliverDueMail } from "@/lib/mail/outbox-sender";
 import { startSmtpSink, type ReceivedMail } from "@/lib/mail/smtp-sink";
 import { smtpTransport } from "@/lib/mail/transport";
-import { makeGaussianPoint } from "@/lib/phantoms/point";
-import { createRandom } from "@/lib/phantoms/random";
 
 vi.mock("next-auth", async (importOriginal) =>
   (await import("../helpers/api")).withAnonymousSession(await importOriginal<typeof import("next-auth")>()),
 );
 
 // ── phantoms ──────────────────────────────────────────────────────────────────────────────────────────────────
-// Gaussian point source on 0.5 mm pixels: FWHM = 2√(2 ln 2)·σ (closed form), so σ = 1.0 mm gives 2.35 mm (4.7 px)
+// Gaussian point source on 0.5 mm pixels (alertPointSourceDicom): FWHM = 2√(2 ln 2)·σ (closed form), so σ = 1.0 mm gives 2.35 mm (4.7 px)
 // and σ = 1.6 mm gives 3.77 mm, 60 % wider — far beyond the 15 % action level set below.
-const PIXEL_MM = 0.5;
 const GOOD_SIGMA_MM = 1.0;
 const BAD_SIGMA_MM = 1.6;
-
-/** A 128 × 128 CT point-source DICOM; the seed moves the centre by under a pixel and draws the noise. */
-function pointSourceDicom(sigmaMm: number, seed: number): Uint8Array {
-  const random = createRandom(seed);
-  const phantom = makeGaussianPoint({
-    width: 128,
-    height: 128,
-    pixelSpacingMm: PIXEL_MM,
-    sigmaXMm: sigmaMm,
-    centreXPx: 63.5 + random.uniform(),
-    centreYPx: 63.5 + random.uniform(),
-    amplitude: 2000,
-    background: 100,
-    noiseSd: 2,
-    seed,
-  });
-  const { width, height, data, pixelSpacingMm } = phantom.image;
-  return writeDicom({ width, height, data, pixelSpacingMm }, { transferSyntax: "explicit-le", bitsAllocated: 16, signed: true, modality: "CT" });
-}
 
 interface ScanJson {
   scan: { id: number; testId: number; scannerId: number };
@@ -183,7 +161,7 @@ beforeAll(async () => {
   // Baseline from three good results (different sub-pixel centres and noise), then explicit levels.
   const baselineScans: number[] = [];
   for (const seed of [101, 102, 103]) {
-    const r = await uploadOk(physicist.token, scannerId, pointSourceDicom(GOOD_SIGMA_MM, seed), `baseline-${seed}.dcm`);
+    const r = await uploadOk(physicist.token, scannerId, alertPointSourceDicom(GOOD_SIGMA_MM, seed), `baseline-${seed}.dcm`);
     expect(r.analysis?.status).toBe("no-baseline");
     baselineScans.push(r.scan.id);
     testId = r.scan.testId;
@@ -214,7 +192,7 @@ let actionAlertId: number;
 
 describe("an action-level upload", () => {
   it("POST /api/scans of a much wider PSF opens an action alert and queues one e-mail per recipient who wants mail at once", async () => {
-    failingFile = pointSourceDicom(BAD_SIGMA_MM, 201);
+    failingFile = alertPointSourceDicom(BAD_SIGMA_MM, 201);
     const res = await uploadOk(physicist.token, scannerId, failingFile, "wide-psf.dcm");
     expect(res.analysis?.status).toBe("action");
     failingScanId = res.scan.id;
@@ -272,7 +250,7 @@ describe("duplicates and repeats", () => {
 
   it("a second action-level result updates the open alert (occurrences 2) instead of opening another", async () => {
     const alertsBefore = await db().select({ id: alerts.id }).from(alerts).where(eq(alerts.scannerId, scannerId));
-    const res = await uploadOk(physicist.token, scannerId, pointSourceDicom(BAD_SIGMA_MM, 202), "wide-psf-2.dcm");
+    const res = await uploadOk(physicist.token, scannerId, alertPointSourceDicom(BAD_SIGMA_MM, 202), "wide-psf-2.dcm");
     expect(res.analysis?.status).toBe("action");
     const after = await db().select().from(alerts).where(eq(alerts.scannerId, scannerId));
     expect(after.map((a) => a.id).sort()).toEqual(alertsBefore.map((a) => a.id).sort());
@@ -344,7 +322,7 @@ describe("the alert workflow over the routes", () => {
 
   let retestScanId: number;
   it("a passing re-test proposes resolution; the physicist then resolves the alert (422 without a note)", async () => {
-    const retest = await uploadOk(physicist.token, scannerId, pointSourceDicom(GOOD_SIGMA_MM, 301), "retest.dcm");
+    const retest = await uploadOk(physicist.token, scannerId, alertPointSourceDicom(GOOD_SIGMA_MM, 301), "retest.dcm");
     expect(retest.analysis?.status).toBe("pass");
     retestScanId = retest.scan.id;
     const detail = await getAlertRoute(apiRequest(`/api/alerts/${actionAlertId}`, { token: physicist.token }), routeParams(actionAlertId));

@@ -6,9 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { expect, test, type APIRequestContext, type Browser } from "@playwright/test";
-import { writeDicom } from "../../lib/imaging/dicom-writer";
-import { makeGaussianPoint } from "../../lib/phantoms/point";
-import { createRandom } from "../../lib/phantoms/random";
+import { alertPointSourceDicom } from "../helpers/phantom-files";
 import { signIn } from "./helpers";
 
 const ENGINEER = "engineer@halfmax.test";
@@ -20,23 +18,8 @@ const ADMIN = "admin@halfmax.test";
 const GOOD_SIGMA_MM = 1.0;
 const BAD_SIGMA_MM = 1.6;
 
-/** A 128 × 128 CT point-source DICOM; the seed moves the centre by under a pixel and draws the noise. */
 function pointSourceDicom(sigmaMm: number, seed: number): Buffer {
-  const random = createRandom(seed);
-  const phantom = makeGaussianPoint({
-    width: 128,
-    height: 128,
-    pixelSpacingMm: 0.5,
-    sigmaXMm: sigmaMm,
-    centreXPx: 63.5 + random.uniform(),
-    centreYPx: 63.5 + random.uniform(),
-    amplitude: 2000,
-    background: 100,
-    noiseSd: 2,
-    seed,
-  });
-  const { width, height, data, pixelSpacingMm } = phantom.image;
-  return Buffer.from(writeDicom({ width, height, data, pixelSpacingMm }, { transferSyntax: "explicit-le", bitsAllocated: 16, signed: true, modality: "CT" }));
+  return Buffer.from(alertPointSourceDicom(sigmaMm, seed));
 }
 
 async function ok<T>(res: Awaited<ReturnType<APIRequestContext["get"]>>, what: string): Promise<T> {

@@ -1,8 +1,10 @@
 // Phantom image files for upload tests, generated with the project's phantom generators and DICOM writer.
 import { PNG } from "pngjs";
-import { writeDicom } from "@/lib/imaging/dicom-writer";
-import { makeGaussianPoint } from "@/lib/phantoms/point";
-import { makeSlantedEdge } from "@/lib/phantoms/edge";
+// Relative imports (not "@/"), so the Playwright tests in tests/e2e can import this file too.
+import { writeDicom } from "../../lib/imaging/dicom-writer";
+import { makeGaussianPoint } from "../../lib/phantoms/point";
+import { makeSlantedEdge } from "../../lib/phantoms/edge";
+import { createRandom } from "../../lib/phantoms/random";
 
 export interface PointDicomOptions {
   sigmaMm?: number;
@@ -34,6 +36,28 @@ export function pointSourceDicom(o: PointDicomOptions = {}) {
     },
   );
   return { bytes, truth: phantom.truth };
+}
+
+/**
+ * A 128 × 128 CT point-source DICOM on 0.5 mm pixels (signed 16-bit, no extra attributes) for the alert workflow tests;
+ * the seed moves the centre by under a pixel and draws the noise, so each seed gives a new file.
+ */
+export function alertPointSourceDicom(sigmaMm: number, seed: number): Uint8Array {
+  const random = createRandom(seed);
+  const phantom = makeGaussianPoint({
+    width: 128,
+    height: 128,
+    pixelSpacingMm: 0.5,
+    sigmaXMm: sigmaMm,
+    centreXPx: 63.5 + random.uniform(),
+    centreYPx: 63.5 + random.uniform(),
+    amplitude: 2000,
+    background: 100,
+    noiseSd: 2,
+    seed,
+  });
+  const { width, height, data, pixelSpacingMm } = phantom.image;
+  return writeDicom({ width, height, data, pixelSpacingMm }, { transferSyntax: "explicit-le", bitsAllocated: 16, signed: true, modality: "CT" });
 }
 
 /** A slanted-edge phantom of any size written quickly (point-sampled ESF; enough for timing and plumbing tests). */

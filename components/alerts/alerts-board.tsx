@@ -1,8 +1,9 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import { useCallback, useEffect, useId, useMemo, useState } from "react";
+import { useCallback, useEffect, useId, useState } from "react";
 import { Button, Callout, Card, Select, Tab, TabList, TabPanel, Tabs } from "@/components/ui";
+import { ScannerOptionGroups } from "@/components/scanners/scanner-option-groups";
 import { errorMessage, fetchJson } from "@/lib/api/fetch-json";
 import { AlertDetailDialog } from "./alert-detail-dialog";
 import { alertKeys, alertsUrl, STATE_FILTERS, type AlertFilters, type AlertPermissions, type AlertRow, type ScannerOption, type StateFilter } from "./alert-types";
@@ -52,11 +53,6 @@ export function AlertsBoard({ initialFilters, scanners, permissions, scopeNote }
   });
   const onOpen = useCallback((row: AlertRow) => setOpenRow(row), []);
 
-  const bySite = useMemo(() => {
-    const m = new Map<string, ScannerOption[]>();
-    for (const s of scanners) m.set(s.siteName, [...(m.get(s.siteName) ?? []), s]);
-    return [...m.entries()];
-  }, [scanners]);
   const filtered = filters.cause !== "" || filters.scannerId !== null;
   const stateLabel = STATE_FILTERS.find((s) => s.value === filters.state)!.label;
 
@@ -87,15 +83,7 @@ export function AlertsBoard({ initialFilters, scanners, permissions, scopeNote }
           onChange={(e) => update({ scannerId: e.target.value ? Number(e.target.value) : null })}
         >
           <option value="">All scanners</option>
-          {bySite.map(([site, list]) => (
-            <optgroup key={site} label={site}>
-              {list.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.name}
-                </option>
-              ))}
-            </optgroup>
-          ))}
+          <ScannerOptionGroups scanners={scanners} />
         </Select>
       </div>
       {filtered ? (

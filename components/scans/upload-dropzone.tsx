@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { useCallback, useEffect, useRef, useState } from "react";
 import { useDropzone } from "react-dropzone";
 import { Button, Callout, Field, Input, Select, Spinner, StatusBadge, cn } from "@/components/ui";
+import { ScannerOptionGroups } from "@/components/scanners/scanner-option-groups";
 import { formatFileSize } from "./format";
 import { METHOD_CHOICES, METHOD_LABELS, type MethodChoiceKey, type ResultStatus } from "./scan-types";
 
@@ -244,9 +245,6 @@ export function UploadDropzone({ scannerId, scanners = [], defaultScannerId, cla
   const busy = running || rows.some((r) => BUSY.includes(r.state.kind));
   const selectedScanner = scanners.find((s) => String(s.id) === chosenScanner);
 
-  const bySite = new Map<string, UploadScannerOption[]>();
-  for (const s of scanners) bySite.set(s.siteName, [...(bySite.get(s.siteName) ?? []), s]);
-
   return (
     <div className={cn("flex flex-col gap-4", className)} data-testid="upload-dropzone">
       {scannerId === undefined ? (
@@ -267,15 +265,7 @@ export function UploadDropzone({ scannerId, scanners = [], defaultScannerId, cla
               setScannerError(null);
             }}
           >
-            {[...bySite.entries()].map(([site, list]) => (
-              <optgroup key={site} label={site}>
-                {list.map((s) => (
-                  <option key={s.id} value={s.id}>
-                    {s.name}
-                  </option>
-                ))}
-              </optgroup>
-            ))}
+            <ScannerOptionGroups scanners={scanners} />
           </Select>
         </Field>
       ) : null}

@@ -1,7 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useQuery } from "@tanstack/react-query";
 import { useId, useMemo } from "react";
 import { Controller, useForm } from "react-hook-form";
 import type { z } from "zod";
@@ -15,6 +15,7 @@ import { createScannerSchema, type CreateScannerInput } from "@/lib/validations/
 import { QUERY_KEYS, type ScannerRow, type SiteRow, type UserRow } from "./admin-types";
 import { MODALITY_OPTIONS } from "./modality-options";
 import { ServerError } from "./server-error";
+import { useRegisterSave } from "./use-register-save";
 
 type ScannerFormValues = z.input<typeof createScannerSchema>;
 
@@ -38,7 +39,6 @@ export interface ScannerFormDialogProps {
  */
 export function ScannerFormDialog({ open, scanner, onClose, onSaved }: ScannerFormDialogProps) {
   const formId = useId();
-  const queryClient = useQueryClient();
   const sites = useQuery({
     queryKey: QUERY_KEYS.sites,
     queryFn: ({ signal }) => fetchJson<{ sites: SiteRow[] }>("/api/sites", { signal }).then((r) => r.sites),
@@ -49,23 +49,13 @@ export function ScannerFormDialog({ open, scanner, onClose, onSaved }: ScannerFo
     queryFn: ({ signal }) => fetchJson<{ users: UserRow[] }>("/api/users", { signal }).then((r) => r.users),
     enabled: open,
   });
-  const save = useMutation({
-    mutationFn: (input: CreateScannerInput) =>
-      scanner ? fetchJson(`/api/scanners/${scanner.id}`, { method: "PATCH", body: input }) : fetchJson("/api/scanners", { method: "POST", body: input }),
-    onSuccess: async () => {
-      await Promise.all([
-        queryClient.invalidateQueries({ queryKey: ["scanners"] }),
-        queryClient.invalidateQueries({ queryKey: QUERY_KEYS.sites }), // scanner counts
-      ]);
-      save.reset();
-      onSaved();
-    },
+  const { save, close } = useRegisterSave<CreateScannerInput>({
+    collectionUrl: "/api/scanners",
+    id: scanner ? scanner.id : null,
+    invalidate: [["scanners"], QUERY_KEYS.sites], // sites show scanner counts
+    onSaved,
+    onClose,
   });
-  const close = () => {
-    if (save.isPending) return;
-    save.reset();
-    onClose();
-  };
   const ready = sites.isSuccess && users.isSuccess;
 
   let content;

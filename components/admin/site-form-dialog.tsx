@@ -1,17 +1,16 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { FormDialog } from "@/components/ui/form-dialog";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
-import { fetchJson } from "@/lib/api/fetch-json";
 import { createSiteSchema, type CreateSiteInput } from "@/lib/validations/site";
 import { QUERY_KEYS, type SiteRow } from "./admin-types";
 import { ServerError } from "./server-error";
+import { useRegisterSave } from "./use-register-save";
 
 type SiteFormValues = z.input<typeof createSiteSchema>;
 
@@ -29,24 +28,13 @@ export interface SiteFormDialogProps {
  */
 export function SiteFormDialog({ open, site, onClose, onSaved }: SiteFormDialogProps) {
   const formId = useId();
-  const queryClient = useQueryClient();
-  const save = useMutation({
-    mutationFn: (input: CreateSiteInput) =>
-      site ? fetchJson(`/api/sites/${site.id}`, { method: "PATCH", body: input }) : fetchJson("/api/sites", { method: "POST", body: input }),
-    onSuccess: async () => {
-      await Promise.all([
-        queryClient.invalidateQueries({ queryKey: QUERY_KEYS.sites }),
-        queryClient.invalidateQueries({ queryKey: ["scanners"] }), // scanner lists show site names
-      ]);
-      save.reset();
-      onSaved();
-    },
+  const { save, close } = useRegisterSave<CreateSiteInput>({
+    collectionUrl: "/api/sites",
+    id: site ? site.id : null,
+    invalidate: [QUERY_KEYS.sites, ["scanners"]], // scanner lists show site names
+    onSaved,
+    onClose,
   });
-  const close = () => {
-    if (save.isPending) return;
-    save.reset();
-    onClose();
-  };
 
   return (
     <FormDialog

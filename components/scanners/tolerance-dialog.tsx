@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useId } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { Button, Dialog, Field, Input, Select } from "@/components/ui";
+import { Field, FormDialog, Input, Select } from "@/components/ui";
 import { ServerError } from "@/components/admin/server-error";
 import { METRICS } from "@/lib/qa/metrics";
 import { toleranceSchema, type ToleranceInput } from "@/lib/validations/qa";
@@ -35,22 +35,18 @@ export function ToleranceDialog({ scannerId, testName, row, onClose, onSaved }: 
   const label = row ? METRICS[row.metric].label : "";
 
   return (
-    <Dialog
+    <FormDialog
       open={row !== null}
-      onOpenChange={(open) => {
-        if (!open && !pending) onClose();
-      }}
+      onClose={onClose}
       title={`${label} tolerance`}
       description={`${testName}. Two tiers: a warning level (investigate) and an action level (act; consider taking the scanner out of use).`}
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose} disabled={pending}>Cancel</Button>
-          <Button type="submit" form={formId} loading={pending} loadingText="Saving…">Save levels</Button>
-        </>
-      }
+      formId={formId}
+      pending={pending}
+      submitLabel="Save levels"
+      pendingLabel="Saving…"
     >
       {row ? <ToleranceForm key={`${row.testId}-${row.metric}`} formId={formId} row={row} onSubmit={(v) => save.mutateAsync(v).then(() => undefined, () => undefined)} error={save.error} /> : null}
-    </Dialog>
+    </FormDialog>
   );
 }
 

@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { Button, Callout, Dialog, Field, Textarea } from "@/components/ui";
+import { Callout, Field, FormDialog, Textarea } from "@/components/ui";
 import { errorMessage } from "@/lib/api/fetch-json";
 import { acknowledgeAlertSchema } from "@/lib/validations/alert";
 import { useAlertAction } from "./use-alert-action";
@@ -31,24 +31,16 @@ export function AcknowledgeDialog({ alertId, subject, onClose }: { alertId: numb
   });
 
   return (
-    <Dialog
+    <FormDialog
       open
       size="sm"
-      onOpenChange={(open) => {
-        if (!open && !pending) onClose();
-      }}
+      onClose={onClose}
       title="Acknowledge alert"
       description={`${subject}. Acknowledging tells the physicist and the other engineers that you are dealing with it.`}
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose} disabled={pending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={pending} loadingText="Acknowledging…">
-            Acknowledge alert
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={pending}
+      submitLabel="Acknowledge alert"
+      pendingLabel="Acknowledging…"
     >
       <form id={formId} onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         <Field label="Note" hint="Optional, e.g. when you expect to be on site. Kept in the audit trail." error={formState.errors.note?.message}>
@@ -60,6 +52,6 @@ export function AcknowledgeDialog({ alertId, subject, onClose }: { alertId: numb
           </Callout>
         ) : null}
       </form>
-    </Dialog>
+    </FormDialog>
   );
 }

@@ -5,7 +5,7 @@ import Link from "next/link";
 import { useId } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { Button, Callout, Dialog, Field, Textarea } from "@/components/ui";
+import { Callout, Field, FormDialog, Textarea } from "@/components/ui";
 import { errorMessage } from "@/lib/api/fetch-json";
 import { resolveAlertSchema } from "@/lib/validations/alert";
 import { formatDateTime } from "@/lib/format/dates";
@@ -41,23 +41,15 @@ export function ResolveDialog({ alertId, subject, retest, onClose }: ResolveDial
   });
 
   return (
-    <Dialog
+    <FormDialog
       open
-      onOpenChange={(open) => {
-        if (!open && !pending) onClose();
-      }}
+      onClose={onClose}
       title="Resolve alert"
       description={`${subject}. Resolving closes the alert; a later failing result opens a new one.`}
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose} disabled={pending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={pending} loadingText="Resolving…">
-            Resolve alert
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={pending}
+      submitLabel="Resolve alert"
+      pendingLabel="Resolving…"
     >
       <form id={formId} onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {retest.scanId ? (
@@ -78,6 +70,6 @@ export function ResolveDialog({ alertId, subject, retest, onClose }: ResolveDial
           </Callout>
         ) : null}
       </form>
-    </Dialog>
+    </FormDialog>
   );
 }

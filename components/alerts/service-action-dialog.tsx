@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
-import { Button, Callout, Dialog, Field, Input, Textarea } from "@/components/ui";
+import { Callout, Field, FormDialog, Input, Textarea } from "@/components/ui";
 import { errorMessage } from "@/lib/api/fetch-json";
 import { serviceEventSchema } from "@/lib/validations/alert";
 import { fromDateTimeLocal, toDateTimeLocal } from "@/lib/format/dates";
@@ -47,23 +47,15 @@ export function ServiceActionDialog({ alertId, subject, onClose }: { alertId: nu
   });
 
   return (
-    <Dialog
+    <FormDialog
       open
-      onOpenChange={(open) => {
-        if (!open && !pending) onClose();
-      }}
+      onClose={onClose}
       title="Log service action"
       description={`${subject}. The entry goes into the scanner's service log and this alert's timeline.`}
-      footer={
-        <>
-          <Button variant="secondary" onClick={onClose} disabled={pending}>
-            Cancel
-          </Button>
-          <Button type="submit" form={formId} loading={pending} loadingText="Saving…">
-            Save service action
-          </Button>
-        </>
-      }
+      formId={formId}
+      pending={pending}
+      submitLabel="Save service action"
+      pendingLabel="Saving…"
     >
       <form id={formId} onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         <Field label="Performed at" required hint="Local time of this computer." error={formState.errors.performedAt?.message}>
@@ -81,6 +73,6 @@ export function ServiceActionDialog({ alertId, subject, onClose }: { alertId: nu
           </Callout>
         ) : null}
       </form>
-    </Dialog>
+    </FormDialog>
   );
 }

@@ -4,6 +4,7 @@ import { analyseLineSource } from "@/lib/analysis/line-source";
 import type { GrayImage } from "@/lib/analysis/types";
 import { makeGaussianLine, makeLine, type GaussianLineOptions } from "@/lib/phantoms/line";
 import { makeGaussianPoint } from "@/lib/phantoms/point";
+import { bisect } from "../helpers/bisect";
 import { expectClose } from "../helpers/expect-close";
 
 const FWHM_PER_SIGMA = 2 * Math.sqrt(2 * Math.LN2);
@@ -16,16 +17,6 @@ const rad = (deg: number): number => (deg * Math.PI) / 180;
  */
 function apertureMtf(f: number, angleDeg: number, px: number, py = px): number {
   return Math.abs(sinc(px * f * Math.cos(rad(angleDeg))) * sinc(py * f * Math.sin(rad(angleDeg))));
-}
-
-/** Root of a decreasing g(f) = level on [lo, hi] by bisection. */
-function bisect(g: (f: number) => number, level: number, lo: number, hi: number): number {
-  for (let i = 0; i < 100; i++) {
-    const mid = (lo + hi) / 2;
-    if (g(mid) > level) lo = mid;
-    else hi = mid;
-  }
-  return (lo + hi) / 2;
 }
 
 /**

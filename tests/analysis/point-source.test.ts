@@ -3,6 +3,7 @@ import { AnalysisError } from "@/lib/analysis/errors";
 import { analysePointSource } from "@/lib/analysis/point-source";
 import type { GaussianFit2d, GrayImage } from "@/lib/analysis/types";
 import { makeGaussianPoint, type GaussianPointOptions } from "@/lib/phantoms/point";
+import { bisect } from "../helpers/bisect";
 import { expectClose } from "../helpers/expect-close";
 
 const FWHM_PER_SIGMA = 2 * Math.sqrt(2 * Math.LN2);
@@ -30,16 +31,6 @@ function radialPresampledMtf(f: number, sigmaMm: number, pixelMm: number): numbe
     sum += presampledMtf(f * Math.cos(t), f * Math.sin(t), sigmaMm, pixelMm);
   }
   return sum / 720;
-}
-
-/** Root of g(f) = level on [lo, hi] by bisection (g decreasing). */
-function bisect(g: (f: number) => number, level: number, lo: number, hi: number): number {
-  for (let i = 0; i < 100; i++) {
-    const mid = (lo + hi) / 2;
-    if (g(mid) > level) lo = mid;
-    else hi = mid;
-  }
-  return (lo + hi) / 2;
 }
 
 const BASE: GaussianPointOptions = {

@@ -5,7 +5,7 @@ import { createServer, type AddressInfo } from "node:net";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Transporter } from "nodemailer";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { alertPointSourceDicom } from "../helpers/phantom-files";
+import { jitteredPointSourceDicom } from "../helpers/phantom-files";
 import { apiRequest, createTestSite, createTestUser, json, noParams, routeParams, unique, type ErrorJson, type TestUser } from "../helpers/api";
 import { POST as sendTestMail } from "@/app/api/admin/mail/test/route";
 import { GET as listAlertsRoute } from "@/app/api/alerts/route";
@@ -29,7 +29,7 @@ vi.mock("next-auth", async (importOriginal) =>
 );
 
 // ── phantoms ──────────────────────────────────────────────────────────────────────────────────────────────────
-// Gaussian point source on 0.5 mm pixels (alertPointSourceDicom): FWHM = 2√(2 ln 2)·σ (closed form), so σ = 1.0 mm gives 2.35 mm (4.7 px)
+// Gaussian point source on 0.5 mm pixels (jitteredPointSourceDicom): FWHM = 2√(2 ln 2)·σ (closed form), so σ = 1.0 mm gives 2.35 mm (4.7 px)
 // and σ = 1.6 mm gives 3.77 mm, 60 % wider — far beyond the 15 % action level set below.
 const GOOD_SIGMA_MM = 1.0;
 const BAD_SIGMA_MM = 1.6;
@@ -161,7 +161,7 @@ beforeAll(async () => {
   // Baseline from three good results (different sub-pixel centres and noise), then explicit levels.
   const baselineScans: number[] = [];
   for (const seed of [101, 102, 103]) {
-    const r = await uploadOk(physicist.token, scannerId, alertPointSourceDicom(GOOD_SIGMA_MM, seed), `baseline-${seed}.dcm`);
+    const r = await uploadOk(physicist.token, scannerId, jitteredPointSourceDicom(GOOD_SIGMA_MM, seed), `baseline-${seed}.dcm`);
     expect(r.analysis?.status).toBe("no-baseline");
     baselineScans.push(r.scan.id);
     testId = r.scan.testId;
@@ -192,7 +192,7 @@ let actionAlertId: number;
 
 describe("an action-level upload", () => {
   it("POST /api/scans of a much wider PSF opens an action alert and queues one e-mail per recipient who wants mail at once", async () => {
-    failingFile = alertPointSourceDicom(BAD_SIGMA_MM, 201);
+    failingFile = jitteredPointSourceDicom(BAD_SIGMA_MM, 201);
     const res = await uploadOk(physicist.token, scannerId, failingFile, "wide-psf.dcm");
     expect(res.analysis?.status).toBe("action");
     failingScanId = res.scan.id;
@@ -250,7 +250,7 @@ describe("duplicates and repeats", () => {
 
   it("a second action-level result updates the open alert (occurrences 2) instead of opening another", async () => {
     const alertsBefore = await db().select({ id: alerts.id }).from(alerts).where(eq(alerts.scannerId, scannerId));
-    const res = await uploadOk(physicist.token, scannerId, alertPointSourceDicom(BAD_SIGMA_MM, 202), "wide-psf-2.dcm");
+    const res = await uploadOk(physicist.token, scannerId, jitteredPointSourceDicom(BAD_SIGMA_MM, 202), "wide-psf-2.dcm");
     expect(res.analysis?.status).toBe("action");
     const after = await db().select().from(alerts).where(eq(alerts.scannerId, scannerId));
     expect(after.map((a) => a.id).sort()).toEqual(alertsBefore.map((a) => a.id).sort());
@@ -322,7 +322,7 @@ describe("the alert workflow over the routes", () => {
 
   let retestScanId: number;
   it("a passing re-test proposes resolution; the physicist then resolves the alert (422 without a note)", async () => {
-    const retest = await uploadOk(physicist.token, scannerId, alertPointSourceDicom(GOOD_SIGMA_MM, 301), "retest.dcm");
+    const retest = await uploadOk(physicist.token, scannerId, jitteredPointSourceDicom(GOOD_SIGMA_MM, 301), "retest.dcm");
     expect(retest.analysis?.status).toBe("pass");
     retestScanId = retest.scan.id;
     const detail = await getAlertRoute(apiRequest(`/api/alerts/${actionAlertId}`, { token: physicist.token }), routeParams(actionAlertId));

@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { expect, test, type APIRequestContext, type Browser } from "@playwright/test";
-import { alertPointSourceDicom } from "../helpers/phantom-files";
+import { jitteredPointSourceDicom } from "../helpers/phantom-files";
 import { signIn } from "./helpers";
 
 const ENGINEER = "engineer@halfmax.test";
@@ -19,7 +19,7 @@ const GOOD_SIGMA_MM = 1.0;
 const BAD_SIGMA_MM = 1.6;
 
 function pointSourceDicom(sigmaMm: number, seed: number): Buffer {
-  return Buffer.from(alertPointSourceDicom(sigmaMm, seed));
+  return Buffer.from(jitteredPointSourceDicom(sigmaMm, seed));
 }
 
 async function ok<T>(res: Awaited<ReturnType<APIRequestContext["get"]>>, what: string): Promise<T> {

@@ -2,9 +2,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { expect, test, type Browser } from "@playwright/test";
-import { writeDicom } from "../../lib/imaging/dicom-writer";
-import { makeGaussianPoint } from "../../lib/phantoms/point";
-import { createRandom } from "../../lib/phantoms/random";
+import { jitteredPointSourceDicom } from "../helpers/phantom-files";
 import { signIn } from "./helpers";
 
 const SPACING_MM = 0.25;
@@ -40,29 +38,13 @@ async function deleteScans(browser: Browser, ids: number[]) {
  * per-run seed so the file is new each run (the duplicate check compares file hashes).
  */
 function writeBeadPhantom(seed: number): string {
-  const random = createRandom(seed);
-  const phantom = makeGaussianPoint({
-    width: 128,
-    height: 128,
+  const bytes = jitteredPointSourceDicom(SIGMA_MM, seed, {
     pixelSpacingMm: SPACING_MM,
-    sigmaXMm: SIGMA_MM,
-    centreXPx: 63.5 + random.uniform(),
-    centreYPx: 63.5 + random.uniform(),
     amplitude: 1500,
     background: 0,
     noiseSd: 4,
-    seed,
+    attributes: { Manufacturer: "Lumeris Imaging", DeviceSerialNumber: "LM-HS64-2207", ConvolutionKernel: "SHARP" },
   });
-  const bytes = writeDicom(
-    { width: phantom.image.width, height: phantom.image.height, data: phantom.image.data, pixelSpacingMm: phantom.image.pixelSpacingMm },
-    {
-      transferSyntax: "explicit-le",
-      bitsAllocated: 16,
-      signed: true,
-      modality: "CT",
-      attributes: { Manufacturer: "Lumeris Imaging", DeviceSerialNumber: "LM-HS64-2207", ConvolutionKernel: "SHARP" },
-    },
-  );
   const file = path.join(dir, `bead-${seed}.dcm`);
   writeFileSync(file, bytes);
   return file;

@@ -38,26 +38,42 @@ export function pointSourceDicom(o: PointDicomOptions = {}) {
   return { bytes, truth: phantom.truth };
 }
 
+export interface JitteredPointOptions {
+  /** Default 0.5. */
+  pixelSpacingMm?: number;
+  /** Default 2000. */
+  amplitude?: number;
+  /** Default 100. */
+  background?: number;
+  /** Default 2. */
+  noiseSd?: number;
+  /** Extra DICOM header attributes (e.g. Manufacturer). */
+  attributes?: Record<string, string | number>;
+}
+
 /**
- * A 128 × 128 CT point-source DICOM on 0.5 mm pixels (signed 16-bit, no extra attributes) for the alert workflow tests;
- * the seed moves the centre by under a pixel and draws the noise, so each seed gives a new file.
+ * A 128 × 128 CT point-source DICOM (signed 16-bit) whose seed moves the centre by under a pixel and draws the noise,
+ * so each seed gives a new file; by default on 0.5 mm pixels as the alert workflow tests use it.
  */
-export function alertPointSourceDicom(sigmaMm: number, seed: number): Uint8Array {
+export function jitteredPointSourceDicom(sigmaMm: number, seed: number, o: JitteredPointOptions = {}): Uint8Array {
   const random = createRandom(seed);
   const phantom = makeGaussianPoint({
     width: 128,
     height: 128,
-    pixelSpacingMm: 0.5,
+    pixelSpacingMm: o.pixelSpacingMm ?? 0.5,
     sigmaXMm: sigmaMm,
     centreXPx: 63.5 + random.uniform(),
     centreYPx: 63.5 + random.uniform(),
-    amplitude: 2000,
-    background: 100,
-    noiseSd: 2,
+    amplitude: o.amplitude ?? 2000,
+    background: o.background ?? 100,
+    noiseSd: o.noiseSd ?? 2,
     seed,
   });
   const { width, height, data, pixelSpacingMm } = phantom.image;
-  return writeDicom({ width, height, data, pixelSpacingMm }, { transferSyntax: "explicit-le", bitsAllocated: 16, signed: true, modality: "CT" });
+  return writeDicom(
+    { width, height, data, pixelSpacingMm },
+    { transferSyntax: "explicit-le", bitsAllocated: 16, signed: true, modality: "CT", ...(o.attributes ? { attributes: o.attributes } : {}) },
+  );
 }
 
 /** A slanted-edge phantom of any size written quickly (point-sampled ESF; enough for timing and plumbing tests). */

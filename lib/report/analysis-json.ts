@@ -2,7 +2,7 @@
  * The JSON form of an analysis result shared by the CLI (`analyze --json`) and the web API, so both use the same keys.
  * Frequencies in cycles/mm (= lp/mm), lengths in mm. Pure data conversion: no framework imports.
  */
-import type { AnalysisMethod, AnalysisResult, AnalysisWarning } from "../analysis/types";
+import type { AnalysisResult, AnalysisWarning } from "../analysis/types";
 
 export interface AnalysisTimingMs {
   /** Time to decode the file, ms. */
@@ -11,28 +11,17 @@ export interface AnalysisTimingMs {
   analysis: number;
 }
 
-export interface AnalysisJson {
-  method: AnalysisMethod;
+/** The result's own metric fields, as they are, plus the CLI/API forms of the spacing, the MTF curve and the timing. */
+export type AnalysisJson = Pick<
+  AnalysisResult,
+  "method" | "fwhmMm" | "fwtmMm" | "fwhmXMm" | "fwhmYMm" | "fwtmXMm" | "fwtmYMm" | "mtf50" | "mtf10" | "nyquist" | "mtfAtNyquist" | "edgeAngleDeg" | "warnings" | "version"
+> & {
   /** [row spacing, column spacing] = [y, x], mm — the DICOM Pixel Spacing order. */
   pixelSpacingMm: [number, number];
-  /** FWHM/FWTM, mm; for a point source the mean of x and y. Null when not measurable (edge). */
-  fwhmMm: number | null;
-  fwtmMm: number | null;
-  fwhmXMm?: number | null;
-  fwhmYMm?: number | null;
-  fwtmXMm?: number | null;
-  fwtmYMm?: number | null;
-  /** Frequencies where the MTF falls to 0.5 / 0.1, cycles/mm; null when not reached. */
-  mtf50: number | null;
-  mtf10: number | null;
-  nyquist: number;
-  mtfAtNyquist: number | null;
-  edgeAngleDeg?: number;
+  /** Frequencies in cycles/mm, MTF normalised to 1 at f = 0. */
   mtf: { frequency: number[]; value: number[] };
-  warnings: AnalysisWarning[];
-  version: string;
   timingMs?: AnalysisTimingMs;
-}
+};
 
 /**
  * Converts an AnalysisResult to its JSON form. Per-axis widths appear only when the result has them (point source),

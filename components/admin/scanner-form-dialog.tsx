@@ -13,7 +13,7 @@ import { Spinner } from "@/components/ui/spinner";
 import { fetchJson } from "@/lib/api/fetch-json";
 import { createScannerSchema, type CreateScannerInput } from "@/lib/validations/scanner";
 import { QUERY_KEYS, type ScannerRow, type SiteRow, type UserRow } from "./admin-types";
-import { MODALITY_OPTIONS } from "./modality-options";
+import { MODALITY_OPTIONS } from "@/lib/modalities";
 import { ServerError } from "./server-error";
 import { useRegisterSave } from "./use-register-save";
 

@@ -12,7 +12,7 @@ import { errorMessage, fetchJson } from "@/lib/api/fetch-json";
 import { ActiveChip } from "./active-chip";
 import { QUERY_KEYS, type ScannerRow } from "./admin-types";
 import { ConfirmDialog } from "./confirm-dialog";
-import { MODALITY_OPTION_LABELS } from "./modality-options";
+import { modalityOptionLabel } from "@/lib/modalities";
 import { ScannerFormDialog } from "./scanner-form-dialog";
 
 type Editing = { scanner: ScannerRow | null } | null;
@@ -61,7 +61,7 @@ export function ScannersAdmin() {
       col.accessor("modality", {
         header: "Modality",
         cell: (c) => (
-          <abbr title={MODALITY_OPTION_LABELS[c.getValue()]} className="no-underline">
+          <abbr title={modalityOptionLabel(c.getValue())} className="no-underline">
             {c.getValue()}
           </abbr>
         ),

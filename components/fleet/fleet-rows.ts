@@ -4,7 +4,7 @@
  */
 import { dueRank } from "@/components/scanners/qa-format";
 import type { FleetScannerJson, ResultStatus, TestStatusJson } from "@/components/scanners/qa-types";
-import { modalityLabel } from "@/lib/modalities";
+import { MODALITY_SHORT_NAMES, modalityLabel } from "@/lib/modalities";
 
 /** Values of the status filter: a result status, a schedule state, or everything. */
 export const STATUS_FILTERS = ["all", "action", "warning", "pass", "no-baseline", "overdue", "never-tested"] as const;
@@ -33,18 +33,7 @@ export interface FleetFilters {
 export const NO_FILTERS: FleetFilters = { status: "all", site: "", modality: "", attention: false };
 
 /** Short modality names for the dense fleet table (the full label goes in a tooltip and the filters). */
-export const MODALITY_SHORT: Record<string, string> = {
-  CT: "CT",
-  PT: "PET",
-  NM: "Gamma camera",
-  DX: "DR",
-  MG: "Mammography",
-  CR: "CR",
-  RF: "Fluoroscopy",
-  US: "Ultrasound",
-  MR: "MRI",
-  OT: "Other",
-};
+export const MODALITY_SHORT: Record<string, string> = MODALITY_SHORT_NAMES;
 
 export interface FleetRow {
   id: number;

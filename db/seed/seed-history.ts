@@ -6,6 +6,7 @@ import { createBaseline } from "@/db/queries/qa";
 import { DEMO_PROFILES, DR_SERVICE_WEEK, demoScansFor } from "@/lib/demo/demo-history";
 import { runJob, type AnalyseJobOutput } from "@/lib/jobs/analysis-job";
 import { testDateFromAttributes } from "@/lib/scans/dicom-dates";
+import { keptAttributes } from "@/lib/scans/ingest";
 import { storage } from "@/lib/storage/file-storage";
 import { DEMO_SCANNERS } from "./demo-fleet";
 import type { SeedSummary } from "./seed-demo";
@@ -43,7 +44,7 @@ export async function seedDemoHistory(database: Db, summary: SeedSummary, opts: 
           .insert(scans)
           .values({
             scannerId, testId, uploadedById: physicistId, fileSha256: key, fileName: scan.fileName, fileSize: scan.bytes.length, format: "dicom",
-            storageKey: key, acquiredAt, attributes: pick(out.decoded.attributes), createdAt: acquiredAt,
+            storageKey: key, acquiredAt, attributes: keptAttributes(out.decoded.attributes), createdAt: acquiredAt,
             ...(scan.week < opts.weeks - 6 ? { signedOffById: physicistId, signedOffAt: new Date(acquiredAt.getTime() + 26 * 3_600_000) } : {}),
           })
           .$returningId();
@@ -65,13 +66,6 @@ export async function seedDemoHistory(database: Db, summary: SeedSummary, opts: 
   }
   // The history is retrospective: its alert e-mails were never due, so none are left queued.
   await database.delete(mailOutbox).where(sql`${mailOutbox.kind} like 'alert-%'`);
-}
-
-const KEPT = ["Modality", "Manufacturer", "ManufacturerModelName", "StationName", "DeviceSerialNumber", "KVP", "ConvolutionKernel", "SliceThickness", "PixelSpacing", "AcquisitionDate", "AcquisitionTime", "SeriesDescription"];
-function pick(a: Record<string, string | number | null>) {
-  const out: Record<string, string | number | null> = {};
-  for (const k of KEPT) if (a[k] !== undefined && a[k] !== null) out[k] = a[k];
-  return out;
 }
 
 /** Give the rows written for a historical result the result's own time instead of the seeding time. */

@@ -26,13 +26,20 @@ export interface IngestInput {
 }
 
 /** DICOM attributes kept with every scan (by keyword). */
-const KEPT_ATTRIBUTES = [
+export const KEPT_ATTRIBUTES = [
   "Modality", "Manufacturer", "ManufacturerModelName", "StationName", "DeviceSerialNumber", "SoftwareVersions", "KVP",
   "ConvolutionKernel", "SliceThickness", "PixelSpacing", "ImagerPixelSpacing", "AcquisitionDate", "AcquisitionTime",
   "ContentDate", "ContentTime", "StudyDate", "StudyTime", "SeriesDescription", "ProtocolName", "SOPClassUID",
   "SOPInstanceUID", "StudyInstanceUID", "SeriesInstanceUID", "ReconstructionDiameter", "Exposure", "XRayTubeCurrent",
   "PresentationIntentType", "LossyImageCompression", "BitsStored", "Rows", "Columns", "NumberOfFrames",
 ] as const;
+
+/** The KEPT_ATTRIBUTES that the file carries (absent or empty ones left out). */
+export function keptAttributes(all: Record<string, string | number | null>): Record<string, string | number | null> {
+  const kept: Record<string, string | number | null> = {};
+  for (const k of KEPT_ATTRIBUTES) if (all[k] !== undefined && all[k] !== null) kept[k] = all[k];
+  return kept;
+}
 
 function mismatchWarnings(out: AnalyseJobOutput, scanner: { modality: string; serialNumber: string; name: string }) {
   const w: { code: string; message: string }[] = [];
@@ -74,8 +81,7 @@ export async function ingestScan(input: IngestInput) {
   }
   const warnings = [...out.decoded.warnings, ...mismatchWarnings(out, scanner)];
   out.result.warnings = [...out.result.warnings, ...warnings];
-  const attributes: Record<string, string | number | null> = {};
-  for (const k of KEPT_ATTRIBUTES) if (out.decoded.attributes[k] !== undefined && out.decoded.attributes[k] !== null) attributes[k] = out.decoded.attributes[k];
+  const attributes = keptAttributes(out.decoded.attributes);
   attributes.TransferSyntaxUID = out.decoded.transferSyntaxUid;
   attributes.PhotometricInterpretation = out.decoded.photometricInterpretation;
   const acquiredAt = testDateFromAttributes(out.decoded.attributes) ?? new Date();

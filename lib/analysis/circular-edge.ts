@@ -12,10 +12,9 @@
  */
 import { assertRoiInImage } from "./background";
 import { locateDisk } from "./disk-locate";
-import { EDGE_SPREAD_DEFAULTS, EsfAccumulator, esfToMtf, meanOver, mtfNoiseSd, type BinnedEsf } from "./edge-spread";
+import { EDGE_SPREAD_DEFAULTS, EsfAccumulator, meanOver, type BinnedEsf } from "./edge-spread";
 import { AnalysisError } from "./errors";
-import { lsfWidths } from "./lsf-widths";
-import { summariseMtf } from "./mtf-metrics";
+import { summariseEsf } from "./esf-summary";
 import { findObjectRegion, type ObjectRegion } from "./object-region";
 import { binAnnulus, plateauNoiseSd, type Annulus } from "./radial-esf";
 import { ANALYSIS_VERSION, type AnalysisResult, type AnalysisWarning, type GrayImage, type Roi } from "./types";
@@ -119,21 +118,11 @@ export function analyseCircularEdge(image: GrayImage, options: CircularEdgeOptio
   const noiseSd = Number.isNaN(plateauNoise) ? region.noiseSd : plateauNoise;
 
   const nyquist = 1 / (2 * pitch);
-  const chain = esfToMtf(esf, {
-    window: "tukey",
-    tukeyTaper: o.tukeyTaper,
-    centreMm: rimOffsetMm,
-    maxFrequencyCyclesPerMm: o.maxFrequencyPerNyquist * nyquist,
-  });
-  const widths = lsfWidths(chain.lsf, binWidthMm);
-  const summary = summariseMtf(chain.mtf, nyquist);
-  const mtfNoiseAtNyquist = mtfNoiseSd(nyquist, {
-    pixelNoiseSd: noiseSd,
-    samplesPerBin: pixelsUsed / esf.value.length,
-    contrast,
-    binWidthMm,
-    windowSumSquares: chain.windowSumSquares,
-  });
+  const { chain, widths, summary, mtfNoiseAtNyquist } = summariseEsf(
+    esf,
+    { window: "tukey", tukeyTaper: o.tukeyTaper, centreMm: rimOffsetMm, maxFrequencyCyclesPerMm: o.maxFrequencyPerNyquist * nyquist },
+    { nyquistCyclesPerMm: nyquist, binWidthMm, pixelNoiseSd: noiseSd, contrast, pixelsUsed },
+  );
   const finalRadius = radius + rimOffsetMm;
   const cnr = noiseSd > 0 ? Math.abs(contrast) / noiseSd : Infinity;
 

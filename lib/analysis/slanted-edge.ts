@@ -17,10 +17,9 @@ import { assertRoiInImage } from "./background";
 import { extractEdgeFrame, frameRegionToRoi } from "./edge-frame";
 import { locateEdgeCoarse, refineEdgeLine, type EdgeLine } from "./edge-locate";
 import { projectEdge } from "./edge-projection";
-import { EDGE_SPREAD_DEFAULTS, esfToMtf, meanOver, mtfNoiseSd } from "./edge-spread";
+import { EDGE_SPREAD_DEFAULTS, meanOver } from "./edge-spread";
+import { summariseEsf } from "./esf-summary";
 import { AnalysisError } from "./errors";
-import { summariseMtf } from "./mtf-metrics";
-import { lsfWidths } from "./lsf-widths";
 import { ANALYSIS_VERSION, type AnalysisResult, type AnalysisWarning, type GrayImage, type Roi } from "./types";
 
 /** Defaults of {@link analyseSlantedEdge}. */
@@ -142,16 +141,11 @@ export function analyseSlantedEdge(image: GrayImage, options: SlantedEdgeOptions
   const cnr = noiseSd > 0 ? Math.abs(contrast) / noiseSd : Infinity;
 
   const nyquist = 1 / (2 * pu);
-  const chain = esfToMtf(esf, { maxFrequencyCyclesPerMm: o.maxFrequencyPerNyquist * nyquist });
-  const widths = lsfWidths(chain.lsf, binWidthMm);
-  const summary = summariseMtf(chain.mtf, nyquist);
-  const mtfNoiseAtNyquist = mtfNoiseSd(nyquist, {
-    pixelNoiseSd: noiseSd,
-    samplesPerBin: pixelsUsed / esf.value.length,
-    contrast,
-    binWidthMm,
-    windowSumSquares: chain.windowSumSquares,
-  });
+  const { chain, widths, summary, mtfNoiseAtNyquist } = summariseEsf(
+    esf,
+    { maxFrequencyCyclesPerMm: o.maxFrequencyPerNyquist * nyquist },
+    { nyquistCyclesPerMm: nyquist, binWidthMm, pixelNoiseSd: noiseSd, contrast, pixelsUsed },
+  );
 
   const warnings: AnalysisWarning[] = [...widths.warnings];
   const angle = Math.abs(signedAngleDeg);

@@ -6,7 +6,8 @@ import { resolveConfig } from "../../scripts/lib/config.mjs";
 const cfg = resolveConfig("test") as { runtimeEnv: Record<string, string> };
 for (const [key, value] of Object.entries(cfg.runtimeEnv)) {
   if (key === "NODE_ENV") continue;
-  if (process.env[key] === undefined || key === "HALFMAX_ENV") process.env[key] = value;
+  // The database is always the test one, even if the shell has a DATABASE_URL of real data.
+  if (process.env[key] === undefined || key === "HALFMAX_ENV" || key === "DATABASE_URL") process.env[key] = value;
 }
 
 // Route tests insert fixtures straight into the database (bypassing the audit log that invalidates cached
